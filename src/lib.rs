@@ -1,0 +1,18 @@
+//! spoolsleuth: offline troubleshooting for pressure-compensated hydraulic
+//! flow-control circuits.
+//!
+//! The library is layered: [`units`] reads and prints values with their
+//! dimensions, [`physics`] holds the checked fluid-power formulas, and the
+//! command-line glue in `cli` turns arguments into calls and reports. See
+//! DEVELOPERS.md for the architecture.
+
+pub mod cli;
+pub mod error;
+pub mod output;
+pub mod physics;
+pub mod units;
+
+mod run;
+
+pub use error::{Error, ExitStatus};
+pub use run::run;

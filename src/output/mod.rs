@@ -1,0 +1,1 @@
+//! Writing results: plain text tables, JSON, colour decisions.

@@ -1,0 +1,1 @@
+//! Checked fluid-power formulas: pure functions on SI values.

@@ -1,0 +1,1 @@
+//! Integration tests: each module runs the real binary on data the test owns.
