@@ -25,8 +25,18 @@ where
             )
         })
         .filter(|(d, c)| *d <= limit && *c != word)
-        .min_by_key(|(d, _)| *d)
+        // On a tie prefer a candidate with the same letters (a transposition).
+        .min_by_key(|(d, c)| (*d, !same_letters(word, c)))
         .map(|(_, c)| c)
+}
+
+fn same_letters(a: &str, b: &str) -> bool {
+    let sorted = |s: &str| {
+        let mut v: Vec<char> = s.to_lowercase().chars().collect();
+        v.sort_unstable();
+        v
+    };
+    sorted(a) == sorted(b)
 }
 
 #[cfg(test)]

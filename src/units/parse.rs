@@ -268,3 +268,112 @@ mod tests {
         assert_eq!(parse_quantity("0.92").unwrap(), Quantity::number(0.92));
     }
 }
+
+#[cfg(test)]
+mod bad_input {
+    use super::*;
+
+    /// Malformed readings, the kind expected, and the whole message.
+    const CASES: &[(&str, Kind, &str)] = &[
+        ("", Kind::Pressure, "empty reading: expected a number and a unit, e.g. `1500 psi`"),
+        ("   ", Kind::Flow, "empty reading: expected a number and a unit, e.g. `1500 psi`"),
+        ("psi", Kind::Pressure, "`psi` does not start with a number (expected e.g. `1500 psi`)"),
+        ("abc", Kind::Pressure, "`abc` does not start with a number (expected e.g. `1500 psi`)"),
+        (".", Kind::Pressure, "`.` does not start with a number (expected e.g. `1500 psi`)"),
+        ("1.2.3 bar", Kind::Pressure, "`1.2.3 bar` does not start with a number (expected e.g. `1500 psi`)"),
+        ("- bar", Kind::Pressure, "`- bar` does not start with a number (expected e.g. `1500 psi`)"),
+        ("NaN psi", Kind::Pressure, "`NaN psi` is not a finite number"),
+        ("inf bar", Kind::Pressure, "`inf bar` is not a finite number"),
+        ("-infinity", Kind::Ratio, "`-infinity` is not a finite number"),
+        ("1e999 psi", Kind::Pressure, "`1e999 psi` is not a finite number"),
+        ("1,500 psi", Kind::Pressure, "`1,500 psi`: write decimals with a point and no thousands separator (e.g. `1500.5`)"),
+        ("10,3 bar", Kind::Pressure, "`10,3 bar`: write decimals with a point and no thousands separator (e.g. `1500.5`)"),
+        ("1500", Kind::Pressure, "`1500` has no unit: expected a pressure unit such as psi, bar, kPa, MPa, psia, inHg (vacuum)"),
+        ("38", Kind::Flow, "`38` has no unit: expected a flow unit such as L/min, gpm, cm³/min"),
+        ("55", Kind::Temperature, "`55` has no unit: expected a temperature unit such as degC, degF"),
+        ("1500 psu", Kind::Pressure, "`1500 psu`: unknown unit `psu` (did you mean `psi`?)"),
+        ("690 kPA", Kind::Pressure, "`690 kPA`: unknown unit `kPA` (did you mean `kPa`?)"),
+        ("103 bra", Kind::Pressure, "`103 bra`: unknown unit `bra` (did you mean `bar`?)"),
+        ("10 gmp", Kind::Flow, "`10 gmp`: unknown unit `gmp` (did you mean `gpm`?)"),
+        ("1200 rmp", Kind::ShaftSpeed, "`1200 rmp`: unknown unit `rmp` (did you mean `rpm`?)"),
+        ("46 cts", Kind::KinematicViscosity, "`46 cts`: unknown unit `cts` (did you mean `cSt`?)"),
+        ("3 furlongs", Kind::Length, "`3 furlongs`: unknown unit `furlongs`"),
+        ("38 L/min", Kind::Pressure, "`38 L/min`: `L/min` is a flow unit, but a pressure is expected (e.g. psi, bar, kPa, MPa, psia, inHg (vacuum))"),
+        ("1500 psi", Kind::Flow, "`1500 psi`: `psi` is a pressure unit, but a flow is expected (e.g. L/min, gpm, cm³/min)"),
+        ("1200 rpm", Kind::Temperature, "`1200 rpm`: `rpm` is a speed or frequency (per time) unit, but a temperature is expected (e.g. degC, degF)"),
+        ("12 mm", Kind::Area, "`12 mm`: `mm` is a length unit, but a area is expected (e.g. cm^2, in^2)"),
+        ("0.87", Kind::Flow, "`0.87` has no unit: expected a flow unit such as L/min, gpm, cm³/min"),
+        ("0.87 SG", Kind::Pressure, "`0.87 SG`: `SG` is a specific gravity unit, but a pressure is expected (e.g. psi, bar, kPa, MPa, psia, inHg (vacuum))"),
+        ("-10 L/min", Kind::Flow, "`-10 L/min`: a flow cannot be negative"),
+        ("-45 cc/rev", Kind::Displacement, "`-45 cc/rev`: a displacement cannot be negative"),
+        ("-3 cSt", Kind::KinematicViscosity, "`-3 cSt`: a kinematic viscosity cannot be negative"),
+        ("-12 mm", Kind::Length, "`-12 mm`: a length cannot be negative"),
+        ("-300 degC", Kind::Temperature, "`-300 degC` is below absolute zero"),
+        ("-500 degF", Kind::Temperature, "`-500 degF` is below absolute zero"),
+        ("40 inHg", Kind::Pressure, "`40 inHg` is below a perfect vacuum (more than one atmosphere under gauge zero)"),
+        ("-2 bar", Kind::Pressure, "`-2 bar` is below a perfect vacuum (more than one atmosphere under gauge zero)"),
+        ("20 SUS", Kind::KinematicViscosity, "`20 SUS`: a SUS reading must be at least 32 SUS"),
+        ("5 SUS/s", Kind::KinematicViscosity, "`5 SUS/s`: SUS cannot be combined with other units"),
+        ("3 m^x", Kind::Area, "`3 m^x`: a unit power must be a whole number from -4 to 4"),
+        ("3 (m", Kind::Length, "`3 (m`: unbalanced bracket in the unit"),
+        ("3 psia/s", Kind::Pressure, "`3 psia/s`: an absolute or vacuum pressure cannot be combined with other units"),
+    ];
+
+    #[test]
+    fn every_malformed_reading_gets_its_message() {
+        assert!(CASES.len() >= 30);
+        for (text, kind, want) in CASES {
+            match parse_as(text, *kind) {
+                Ok(q) => panic!("`{text}` parsed as {q:?}"),
+                Err(e) => assert_eq!(e.to_string(), *want, "for `{text}`"),
+            }
+        }
+        println!("{} malformed readings rejected with their messages", CASES.len());
+    }
+}
+
+#[cfg(test)]
+mod properties {
+    use super::*;
+    use crate::units::{format_number, unit::UNITS, value_in};
+    use proptest::prelude::*;
+
+    proptest! {
+        /// Reading a value in any linear unit and printing it back in the same
+        /// unit gives the number typed.
+        #[test]
+        fn round_trip_through_si(index in 0..UNITS.len(), x in 0.001f64..1e6) {
+            let unit = &UNITS[index];
+            let parsed = parse_quantity(&format!("{x} {}", unit.symbol));
+            prop_assume!(parsed.is_ok());
+            let back = value_in(parsed.unwrap(), unit.symbol).unwrap();
+            prop_assert!(((back - x) / x).abs() < 1e-9, "{} {} came back as {}", x, unit.symbol, back);
+        }
+
+        /// psi → bar → psi and °F → °C → °F round trips.
+        #[test]
+        fn cross_unit_round_trip(x in -10.0f64..1e4) {
+            let p = parse_as(&format!("{x} psi"), Kind::Pressure).unwrap();
+            let bar = value_in(p, "bar").unwrap();
+            let again = parse_as(&format!("{bar:e} bar"), Kind::Pressure).unwrap();
+            prop_assert!((again.si() - p.si()).abs() <= 1e-9 * p.si().abs().max(1.0));
+            let t = parse_as(&format!("{x} degF"), Kind::Temperature).unwrap();
+            let c = value_in(t, "°C").unwrap();
+            let t2 = parse_as(&format!("{c:e} degC"), Kind::Temperature).unwrap();
+            prop_assert!((t2.si() - t.si()).abs() < 1e-9);
+        }
+
+        /// Printing never panics and never prints NaN for a finite value.
+        #[test]
+        fn printing_is_total(x in proptest::num::f64::NORMAL) {
+            prop_assert!(!format_number(x).contains("NaN"));
+        }
+
+        /// No text makes the parser panic.
+        #[test]
+        fn parser_never_panics(s in "\\PC{0,24}") {
+            let _ = parse_quantity(&s);
+            let _ = parse_as(&s, Kind::Pressure);
+        }
+    }
+}
