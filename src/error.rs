@@ -5,6 +5,8 @@
 
 use std::process::ExitCode;
 
+use crate::machine::MachineError;
+use crate::rules::RulesError;
 use crate::units::UnitError;
 
 /// How a command that ran to the end went.
@@ -56,6 +58,12 @@ pub enum Error {
     /// JSON could not be produced.
     #[error("cannot encode JSON: {0}")]
     Json(#[from] serde_json::Error),
+    /// A machine profile could not be read or found.
+    #[error(transparent)]
+    Machine(#[from] MachineError),
+    /// The rule base could not be loaded, or an id in it was not found.
+    #[error(transparent)]
+    Rules(#[from] RulesError),
     /// A reading or unit that could not be understood.
     #[error(transparent)]
     Units(#[from] UnitError),

@@ -8,8 +8,10 @@
 
 pub mod cli;
 pub mod error;
+pub mod machine;
 pub mod output;
 pub mod physics;
+pub mod rules;
 pub mod suggest;
 pub mod units;
 
