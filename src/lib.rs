@@ -10,6 +10,7 @@ pub mod cli;
 pub mod error;
 pub mod output;
 pub mod physics;
+pub mod suggest;
 pub mod units;
 
 mod run;

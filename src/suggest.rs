@@ -1,0 +1,55 @@
+//! "Did you mean …?" suggestions for misspelt names, units and ids.
+
+/// The candidate nearest to `word`, if one is near enough to be a likely
+/// misspelling: a case-insensitive match first, then the smallest
+/// Damerau–Levenshtein distance within a third of the word's length (at
+/// least 1, at most 3).
+pub fn suggest<'a, I>(word: &str, candidates: I) -> Option<&'a str>
+where
+    I: IntoIterator<Item = &'a str>,
+{
+    let candidates: Vec<&'a str> = candidates.into_iter().collect();
+    if let Some(exact) = candidates
+        .iter()
+        .find(|c| c.eq_ignore_ascii_case(word) && **c != word)
+    {
+        return Some(exact);
+    }
+    let limit = (word.chars().count() / 3).clamp(1, 3);
+    candidates
+        .iter()
+        .map(|c| {
+            (
+                strsim::damerau_levenshtein(&word.to_lowercase(), &c.to_lowercase()),
+                *c,
+            )
+        })
+        .filter(|(d, c)| *d <= limit && *c != word)
+        // On a tie prefer a candidate with the same letters (a transposition).
+        .min_by_key(|(d, c)| (*d, !same_letters(word, c)))
+        .map(|(_, c)| c)
+}
+
+fn same_letters(a: &str, b: &str) -> bool {
+    let sorted = |s: &str| {
+        let mut v: Vec<char> = s.to_lowercase().chars().collect();
+        v.sort_unstable();
+        v
+    };
+    sorted(a) == sorted(b)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::suggest;
+
+    #[test]
+    fn suggestions() {
+        let units = ["bar", "psi", "kPa", "MPa", "gpm"];
+        assert_eq!(suggest("kPA", units), Some("kPa"));
+        assert_eq!(suggest("bra", units), Some("bar"));
+        assert_eq!(suggest("psu", units), Some("psi"));
+        assert_eq!(suggest("furlong", units), None);
+        assert_eq!(suggest("bar", units), None);
+    }
+}
