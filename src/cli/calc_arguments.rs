@@ -67,7 +67,7 @@ pub enum Calculation {
     /// Example: spoolsleuth calc compressed-volume --volume "2 L" --pressure-rise "100 bar" --bulk-modulus "1 GPa"
     #[command(verbatim_doc_comment)]
     CompressedVolume(CompressedVolumeArgs),
-    /// Metering drop a compensator spool holds, and its drift between two operating points
+    /// Metering drop a compensator holds, and its drift between two operating points
     ///
     /// Δp_m = [F₀ + k·s − F_flow]/A_s, F_flow = ρ·Q·C_v·√(2·Δp_c/ρ)·cos θ, F₀ = setting·A_s.
     /// A relative change e of Δp_m changes the flow by √(1 + e) − 1.
