@@ -5,6 +5,7 @@
 
 use std::process::ExitCode;
 
+use crate::physics::PhysicsError;
 use crate::units::UnitError;
 
 /// How a command that ran to the end went.
@@ -56,6 +57,9 @@ pub enum Error {
     /// JSON could not be produced.
     #[error("cannot encode JSON: {0}")]
     Json(#[from] serde_json::Error),
+    /// Inputs outside the domain of a formula.
+    #[error(transparent)]
+    Physics(#[from] PhysicsError),
     /// A reading or unit that could not be understood.
     #[error(transparent)]
     Units(#[from] UnitError),

@@ -2,6 +2,8 @@
 
 use clap::{Parser, Subcommand};
 
+use super::calc_arguments::CalcArguments;
+
 /// Offline troubleshooting for pressure-compensated hydraulic flow controls.
 #[derive(Debug, Parser)]
 #[command(name = "spoolsleuth", version, about)]
@@ -13,4 +15,7 @@ pub struct Arguments {
 
 /// The subcommands.
 #[derive(Debug, Subcommand)]
-pub enum Command {}
+pub enum Command {
+    /// Run one fluid-power calculation with readings in any unit
+    Calc(CalcArguments),
+}

@@ -2,12 +2,18 @@
 //! into library calls. Nothing below this folder imports clap.
 
 mod arguments;
+mod calc_arguments;
+mod calc_command;
+mod calc_report;
 
-pub use arguments::Arguments;
+pub use arguments::{Arguments, Command};
+pub use calc_arguments::CalcArguments;
 
 use crate::error::{Error, ExitStatus};
 
 /// Execute parsed arguments.
 pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
-    match arguments.command {}
+    match arguments.command {
+        Command::Calc(calc) => calc_command::execute(calc),
+    }
 }

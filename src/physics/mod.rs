@@ -63,7 +63,7 @@ pub use natural_frequency::{
 pub use orifice::{
     capacity_flow, orifice_area_for_flow, orifice_capacity, orifice_drop, orifice_flow,
     reynolds_number, round_orifice_reynolds, slot_opening_for_flow, slot_reynolds,
-    us_orifice_constant, valve_capacity,
+    us_orifice_constant, valve_capacity, water_density_for_constant,
 };
 pub use physics_error::{PhysicsError, PhysicsResult};
 pub use power::{

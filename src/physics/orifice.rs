@@ -75,6 +75,19 @@ pub fn us_orifice_constant(water_density_kg_m3: f64) -> PhysicsResult<f64> {
     )
 }
 
+/// The water density, in kg/m³, that a given US orifice constant `constant` implies:
+/// ρ_w = 2·psi·(in²/(K·gpm))², the inverse of [`us_orifice_constant`]. With it the SI
+/// equation reproduces a textbook's US form (K = 38.1 gives 993.4 kg/m³).
+///
+/// Source: derived (exact unit factors, NIST SP 811 B.8); Esposito Ex. 8-4 for K = 38.1.
+pub fn water_density_for_constant(constant: f64) -> PhysicsResult<f64> {
+    let k = positive("orifice constant", constant, "")?;
+    result(
+        "water density",
+        2.0 * PSI * (INCH * INCH / (k * GPM)).powi(2),
+    )
+}
+
 /// Flow capacity of a valve from one reading, in m³/(s·√Pa): C = Q/√(Δp/SG).
 ///
 /// The SI form of the needle-valve capacity `Q[gpm] = C_v·√(Δp[psi]/SG)`;
@@ -224,7 +237,7 @@ mod tests {
         // Esposito Ex. 8-4: C .80, D 1 in, 100 psi, SG .9, K 38.1 → 252.34 gpm.
         // The book's K = 38.1 corresponds to ρ_w = 2·psi·(in²/(K·gpm))².
         let k = 38.1;
-        let rho_w = 2.0 * PSI * (SQUARE_INCH / (k * GPM)).powi(2);
+        let rho_w = water_density_for_constant(k).unwrap();
         assert_close(us_orifice_constant(rho_w).unwrap(), k, 1e-12);
         let area = circle_area(INCH).unwrap();
         let q = orifice_flow(0.80, area, 100.0 * PSI, 0.9 * rho_w).unwrap();
