@@ -7,6 +7,7 @@ use std::process::ExitCode;
 
 use crate::machine::MachineError;
 use crate::rules::RulesError;
+use crate::physics::PhysicsError;
 use crate::units::UnitError;
 
 /// How a command that ran to the end went.
@@ -64,6 +65,9 @@ pub enum Error {
     /// The rule base could not be loaded, or an id in it was not found.
     #[error(transparent)]
     Rules(#[from] RulesError),
+    /// Inputs outside the domain of a formula.
+    #[error(transparent)]
+    Physics(#[from] PhysicsError),
     /// A reading or unit that could not be understood.
     #[error(transparent)]
     Units(#[from] UnitError),

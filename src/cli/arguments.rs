@@ -6,6 +6,8 @@ use clap::{Parser, Subcommand, ValueEnum};
 
 use super::rules_arguments::RulesArguments;
 
+use super::calc_arguments::CalcArguments;
+
 /// Offline troubleshooting for pressure-compensated hydraulic flow controls.
 #[derive(Debug, Parser)]
 #[command(
@@ -63,6 +65,8 @@ pub enum UnitsArgument {
 /// The subcommands.
 #[derive(Debug, Subcommand)]
 pub enum Command {
+    /// Run one fluid-power calculation with readings in any unit.
+    Calc(CalcArguments),
     /// Load, lint, list and explain the rule base.
     Rules(RulesArguments),
 }

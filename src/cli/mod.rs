@@ -3,11 +3,15 @@
 //! imports clap.
 
 mod arguments;
+mod calc_arguments;
+mod calc_command;
+mod calc_report;
 mod context;
 mod rules_arguments;
 mod rules_command;
 
 pub use arguments::Arguments;
+pub use calc_arguments::CalcArguments;
 
 use crate::error::{Error, ExitStatus};
 use arguments::Command;
@@ -17,6 +21,7 @@ use context::Context;
 pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
     let context = Context::from_arguments(&arguments);
     match arguments.command {
+        Command::Calc(calc) => calc_command::execute(&context, calc),
         Command::Rules(args) => rules_command::execute(&context, args.action),
     }
 }

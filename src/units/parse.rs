@@ -328,7 +328,10 @@ mod bad_input {
                 Err(e) => assert_eq!(e.to_string(), *want, "for `{text}`"),
             }
         }
-        println!("{} malformed readings rejected with their messages", CASES.len());
+        println!(
+            "{} malformed readings rejected with their messages",
+            CASES.len()
+        );
     }
 }
 
