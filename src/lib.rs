@@ -8,6 +8,7 @@
 
 pub mod cli;
 pub mod error;
+pub mod formula;
 pub mod output;
 pub mod physics;
 pub mod suggest;
