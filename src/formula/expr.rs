@@ -239,6 +239,22 @@ impl Expr {
         }
     }
 
+    /// The node with its span widened to the brackets around it, so that
+    /// messages about a bracketed operation underline the brackets too.
+    /// Names and calls keep their own span, which locates their name.
+    pub(crate) fn bracketed(mut self, outer: Span) -> Expr {
+        match &mut self {
+            Expr::Binary { span, .. }
+            | Expr::Bool { span, .. }
+            | Expr::If { span, .. }
+            | Expr::Literal { span, .. }
+            | Expr::Power { span, .. }
+            | Expr::Unary { span, .. } => *span = outer,
+            Expr::Call { .. } | Expr::Name { .. } => {}
+        }
+        self
+    }
+
     /// How tightly this node binds, for deciding where brackets go.
     fn precedence(&self) -> u8 {
         match self {

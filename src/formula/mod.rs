@@ -42,3 +42,6 @@ pub use value_type::ValueType;
 pub fn parse(source: &str) -> Result<Expr, FormulaError> {
     Parser::parse(source)
 }
+
+#[cfg(test)]
+mod testing;

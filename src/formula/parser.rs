@@ -236,9 +236,9 @@ impl<'a> Parser<'a> {
             }
             TokenKind::LeftParen => {
                 self.advance();
-                let inner = self.expression(precedence::IF)?;
-                self.expect(&TokenKind::RightParen, "`)`")?;
-                Ok(inner)
+                let (inner, depth) = self.expression(precedence::IF)?;
+                let end = self.expect(&TokenKind::RightParen, "`)`")?.span;
+                Ok((inner.bracketed(start.to(end)), depth))
             }
             TokenKind::Minus => self.negation(start),
             TokenKind::Not => {
