@@ -8,6 +8,7 @@
 
 pub mod cli;
 pub mod error;
+pub mod formula;
 pub mod machine;
 pub mod output;
 pub mod physics;

@@ -41,12 +41,5 @@ impl Context {
     pub fn rule_base(&self) -> Result<RuleBase, Error> {
         Ok(RuleBase::load(&self.rule_dirs)?)
     }
-
-    /// The same context with colour off (for JSON output).
-    pub fn plain(&self) -> Self {
-        Context {
-            color: Color::never(),
-            ..self.clone()
-        }
     }
 }

@@ -34,10 +34,7 @@ impl RuleBase {
         lints
     }
 
-    fn unknown_cautions<'a>(&self, ids: &'a [String]) -> impl Iterator<Item = &'a String> + '_
-    where
-        'a: '_,
-    {
+    fn unknown_cautions<'a>(&'a self, ids: &'a [String]) -> impl Iterator<Item = &'a String> + 'a {
         ids.iter().filter(|c| !self.cautions.contains_key(*c))
     }
 

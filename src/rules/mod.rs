@@ -11,7 +11,7 @@ mod rules_error;
 mod source_map;
 
 pub use example_run::ExampleResult;
-pub use formulas::{Check, Evaluated, Evidence, TypeEnv, Values};
+pub use formulas::{function_list, functions, Check, Evaluated, Evidence, TypeEnv, Values};
 pub use lint::Lint;
 pub use readings::{ReadingError, Readings};
 pub use rule_base::{
