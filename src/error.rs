@@ -6,8 +6,8 @@
 use std::process::ExitCode;
 
 use crate::machine::MachineError;
-use crate::rules::RulesError;
 use crate::physics::PhysicsError;
+use crate::rules::RulesError;
 use crate::units::UnitError;
 
 /// How a command that ran to the end went.

@@ -22,7 +22,13 @@ instructions and licensed practice."
 )]
 pub struct Arguments {
     /// When to use colour.
-    #[arg(long, value_enum, default_value = "auto", env = "SPOOLSLEUTH_COLOR", global = true)]
+    #[arg(
+        long,
+        value_enum,
+        default_value = "auto",
+        env = "SPOOLSLEUTH_COLOR",
+        global = true
+    )]
     pub color: ColorArgument,
     /// Extra rule folder(s) added to the built-in rule base.
     #[arg(
@@ -35,7 +41,13 @@ base. An entry with the same id as a built-in one replaces it, and the tool says
     )]
     pub rules: Vec<PathBuf>,
     /// Unit system for printed results.
-    #[arg(long, value_enum, default_value = "metric", env = "SPOOLSLEUTH_UNITS", global = true)]
+    #[arg(
+        long,
+        value_enum,
+        default_value = "metric",
+        env = "SPOOLSLEUTH_UNITS",
+        global = true
+    )]
     pub units: UnitsArgument,
     /// What to do.
     #[command(subcommand)]
@@ -66,7 +78,7 @@ pub enum UnitsArgument {
 #[derive(Debug, Subcommand)]
 pub enum Command {
     /// Run one fluid-power calculation with readings in any unit.
-    Calc(CalcArguments),
+    Calc(Box<CalcArguments>),
     /// Load, lint, list and explain the rule base.
     Rules(RulesArguments),
 }

@@ -6,9 +6,9 @@ use std::io::Write;
 
 use super::calc_arguments::*;
 use super::calc_report::Report;
+use super::context::Context;
 use crate::error::{Error, ExitStatus};
 use crate::physics::{self, constants, BulkModulusInputs, Compensator, GasProcess};
-use super::context::Context;
 use crate::units::{self, unit::WATER_DENSITY_60F, Kind};
 
 /// Run one calculation and print its report to standard output.

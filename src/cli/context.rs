@@ -41,5 +41,4 @@ impl Context {
     pub fn rule_base(&self) -> Result<RuleBase, Error> {
         Ok(RuleBase::load(&self.rule_dirs)?)
     }
-    }
 }

@@ -21,7 +21,7 @@ use context::Context;
 pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
     let context = Context::from_arguments(&arguments);
     match arguments.command {
-        Command::Calc(calc) => calc_command::execute(&context, calc),
+        Command::Calc(calc) => calc_command::execute(&context, *calc),
         Command::Rules(args) => rules_command::execute(&context, args.action),
     }
 }

@@ -14,8 +14,10 @@ pub struct RulesArguments {
 #[derive(Debug, Subcommand)]
 pub enum RulesAction {
     /// Load, lint and run every rule's examples; exit 1 on any failure.
-    #[command(long_about = "Load the rule base (the built-in one plus --rules folders), \
-lint it and run every rule's worked examples.\n\nExample: spoolsleuth rules check --rules my-rules/")]
+    #[command(
+        long_about = "Load the rule base (the built-in one plus --rules folders), \
+lint it and run every rule's worked examples.\n\nExample: spoolsleuth rules check --rules my-rules/"
+    )]
     Check {
         /// Print the results as JSON.
         #[arg(long)]

@@ -106,13 +106,26 @@ fn check_text(context: &Context, report: &CheckReport) -> String {
     }
     let mut out = format!("{t}\n");
     for r in report.results.iter().filter(|r| !r.passed) {
-        out.push_str(&format!("{}: {}: {}\n", color.red("failed"), r.rule, r.detail));
+        out.push_str(&format!(
+            "{}: {}: {}\n",
+            color.red("failed"),
+            r.rule,
+            r.detail
+        ));
     }
     for o in &report.overrides {
-        out.push_str(&format!("override: rule `{}` at {} replaces {}\n", o.id, o.at, o.replaces));
+        out.push_str(&format!(
+            "override: rule `{}` at {} replaces {}\n",
+            o.id, o.at, o.replaces
+        ));
     }
     for l in report.lints {
-        out.push_str(&format!("{}: {}: {}\n", color.yellow("lint"), l.at, l.message));
+        out.push_str(&format!(
+            "{}: {}: {}\n",
+            color.yellow("lint"),
+            l.at,
+            l.message
+        ));
     }
     out.push_str(&format!(
         "{} rules, {} examples: {} passed, {} failed; {} lint findings\n",
@@ -238,19 +251,34 @@ fn show(context: &Context, id: &str, json: bool) -> Result<ExitStatus, Error> {
     }
     let color = context.color;
     let mut out = format!("{} — {}\n", color.bold(&v.id), v.title);
-    out.push_str(&format!("Tests the cause: {} ({})\n", v.cause_label, v.cause));
+    out.push_str(&format!(
+        "Tests the cause: {} ({})\n",
+        v.cause_label, v.cause
+    ));
     out.push_str(&format!("For symptoms: {}\n", v.symptoms.join(", ")));
-    let scope = |names: &[&str]| if names.is_empty() { "all".to_string() } else { names.join(", ") };
+    let scope = |names: &[&str]| {
+        if names.is_empty() {
+            "all".to_string()
+        } else {
+            names.join(", ")
+        }
+    };
     out.push_str(&format!(
         "Applies to circuits: {}; placements: {}\n",
         scope(&v.circuits),
         scope(&v.placements)
     ));
     out.push_str(&format!("Check: {}\n", v.check));
-    out.push_str(&format!("  if true, it {} the cause; if false, it {} it\n", v.when_true, v.when_false));
+    out.push_str(&format!(
+        "  if true, it {} the cause; if false, it {} it\n",
+        v.when_true, v.when_false
+    ));
     out.push_str(&format!("Readings it needs: {}\n", v.inputs.join(", ")));
     for t in &v.thresholds {
-        out.push_str(&format!("Threshold {} = {} (source: {})\n", t.id, t.value, t.source));
+        out.push_str(&format!(
+            "Threshold {} = {} (source: {})\n",
+            t.id, t.value, t.source
+        ));
     }
     out.push_str(&format!("Evidence: {}\n", v.evidence));
     out.push_str(&format!("Prior likelihood: {}\n", v.prior));
@@ -258,7 +286,12 @@ fn show(context: &Context, id: &str, json: bool) -> Result<ExitStatus, Error> {
     out.push_str(&format!("Fix: {}\n", v.fix));
     for c in &v.cautions {
         if let Some(caution) = base.cautions.get(c) {
-            out.push_str(&format!("{}: {} — {}\n", color.yellow("Caution"), caution.entry.title, caution.entry.text));
+            out.push_str(&format!(
+                "{}: {} — {}\n",
+                color.yellow("Caution"),
+                caution.entry.title,
+                caution.entry.text
+            ));
         }
     }
     out.push_str(&format!("Defined at {}", v.defined_at));
@@ -281,7 +314,11 @@ struct FunctionView {
 fn functions(json: bool) -> Result<ExitStatus, Error> {
     let views: Vec<FunctionView> = crate::rules::function_list()
         .into_iter()
-        .map(|(name, signature, doc)| FunctionView { name, signature, doc })
+        .map(|(name, signature, doc)| FunctionView {
+            name,
+            signature,
+            doc,
+        })
         .collect();
     if json {
         output::print_json(&views)?;

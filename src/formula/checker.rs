@@ -230,7 +230,14 @@ impl<'a> Checker<'a> {
             return Err(arity(name, &names.join(", "), types.len(), span));
         }
         for ((typed, arg), parameter) in types.iter().zip(args).zip(&function.parameters) {
-            let wanted = Typed::quantity(parameter.dimension);
+            let wanted = if parameter.temperature_point {
+                Typed::new(
+                    ValueType::of_kind(Kind::Temperature),
+                    Some(Kind::Temperature),
+                )
+            } else {
+                Typed::quantity(parameter.dimension)
+            };
             if typed.value_type != wanted.value_type {
                 let message = format!(
                     "argument `{}` of `{name}` must be {}, found {}",

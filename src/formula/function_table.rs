@@ -17,6 +17,9 @@ pub struct Parameter {
     pub name: String,
     /// The dimension an argument must have.
     pub dimension: Dimension,
+    /// True when the argument is a temperature on a scale (a point), not a
+    /// difference; the body receives it in kelvin.
+    pub temperature_point: bool,
 }
 
 /// A function registered with its signature.
@@ -52,11 +55,20 @@ impl Function {
                 .map(|(name, dimension)| Parameter {
                     name: (*name).to_string(),
                     dimension: *dimension,
+                    temperature_point: false,
                 })
                 .collect(),
             result,
             body,
         }
+    }
+
+    /// The same function with parameter `index` taking a temperature point.
+    pub fn with_temperature_point(mut self, index: usize) -> Self {
+        if let Some(p) = self.parameters.get_mut(index) {
+            p.temperature_point = true;
+        }
+        self
     }
 
     /// The signature in words, e.g. `area_flow(area: area, v: linear speed) -> flow`.

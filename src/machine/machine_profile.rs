@@ -67,7 +67,10 @@ pub struct NameplateProblem {
 
 impl MachineProfile {
     /// The nameplate values parsed with their quantity kinds, and the problems found.
-    pub fn nameplate_values(&self, base: &RuleBase) -> (BTreeMap<String, Quantity>, Vec<NameplateProblem>) {
+    pub fn nameplate_values(
+        &self,
+        base: &RuleBase,
+    ) -> (BTreeMap<String, Quantity>, Vec<NameplateProblem>) {
         let mut values = BTreeMap::new();
         let mut problems = Vec::new();
         for (name, text) in &self.nameplate {

@@ -92,17 +92,27 @@ pub fn parse(name: &str, text: &str) -> Result<MachineProfile, MachineError> {
             None => name.to_string(),
         };
         let message = e.to_string();
-        let message = message.split(" at line ").next().unwrap_or(&message).to_string();
+        let message = message
+            .split(" at line ")
+            .next()
+            .unwrap_or(&message)
+            .to_string();
         MachineError::Invalid { at, message }
     })?;
     if profile.version != 1 {
         return Err(MachineError::Invalid {
             at: name.to_string(),
-            message: format!("unsupported profile version {} (expected 1)", profile.version),
+            message: format!(
+                "unsupported profile version {} (expected 1)",
+                profile.version
+            ),
         });
     }
     let valid_id = !profile.id.is_empty()
-        && profile.id.chars().all(|c| c.is_ascii_lowercase() || c.is_ascii_digit() || c == '-');
+        && profile
+            .id
+            .chars()
+            .all(|c| c.is_ascii_lowercase() || c.is_ascii_digit() || c == '-');
     if !valid_id {
         return Err(MachineError::Invalid {
             at: name.to_string(),

@@ -69,7 +69,9 @@ impl RuleBase {
         let (got, detail) = match rule.check.evaluate(&values) {
             Evaluated::Condition(true) => (Expectation::True, String::new()),
             Evaluated::Condition(false) => (Expectation::False, String::new()),
-            Evaluated::Missing(names) => (Expectation::Missing, format!("needs {}", names.join(", "))),
+            Evaluated::Missing(names) => {
+                (Expectation::Missing, format!("needs {}", names.join(", ")))
+            }
             Evaluated::Quantity(_) => {
                 result.detail = "the check gave a quantity, not true or false".into();
                 return result;

@@ -148,7 +148,10 @@ impl Evidence {
 pub fn referenced_names(text: &str) -> Vec<String> {
     static IDENT: OnceLock<Regex> = OnceLock::new();
     let ident = IDENT.get_or_init(|| Regex::new(r"[A-Za-z_][A-Za-z0-9_]*").expect("valid regex"));
-    ident.find_iter(text).map(|m| m.as_str().to_string()).collect()
+    ident
+        .find_iter(text)
+        .map(|m| m.as_str().to_string())
+        .collect()
 }
 
 /// Every function rule authors can call: name, signature, what it computes.
@@ -185,7 +188,9 @@ pub fn functions() -> &'static FunctionTable {
     TABLE.get_or_init(|| {
         let mut table = FunctionTable::new();
         for f in bindings() {
-            table.register(f).expect("physics function names are unique");
+            table
+                .register(f)
+                .expect("physics function names are unique");
         }
         table
     })
@@ -310,7 +315,8 @@ fn bindings() -> Vec<Function> {
                     .map_err(err)?;
                 line.viscosity_at(a[2]).map_err(err)
             },
-        ),
+        )
+        .with_temperature_point(2),
         Function::new(
             "startup_flow_peak",
             "flow peak while an open compensator closes, Q_set·√(Δp_available/Δp_set) (derived)",
@@ -341,22 +347,40 @@ mod tests {
 
     #[test]
     fn checks_compile_and_evaluate() {
-        let check = Check::compile("supply_pressure@loaded - load_pressure@loaded > 10 bar", &env()).unwrap();
+        let check = Check::compile(
+            "supply_pressure@loaded - load_pressure@loaded > 10 bar",
+            &env(),
+        )
+        .unwrap();
         assert!(check.is_condition());
         let mut values = Values::new();
-        values.insert("supply_pressure@loaded".into(), parse_as("180 bar", Kind::Pressure).unwrap());
-        assert_eq!(check.evaluate(&values), Evaluated::Missing(vec!["load_pressure@loaded".into()]));
-        values.insert("load_pressure@loaded".into(), parse_as("1500 psi", Kind::Pressure).unwrap());
+        values.insert(
+            "supply_pressure@loaded".into(),
+            parse_as("180 bar", Kind::Pressure).unwrap(),
+        );
+        assert_eq!(
+            check.evaluate(&values),
+            Evaluated::Missing(vec!["load_pressure@loaded".into()])
+        );
+        values.insert(
+            "load_pressure@loaded".into(),
+            parse_as("1500 psi", Kind::Pressure).unwrap(),
+        );
         assert_eq!(check.evaluate(&values), Evaluated::Condition(true));
     }
 
     #[test]
     fn physics_functions_are_dimension_checked() {
         // Rabie 2009, eq. 2.34–2.37 worked through: d 2 mm, Cd 0.62, 10 bar, 870 kg/m³ → 5.6034 L/min.
-        let f = Check::compile("orifice_flow(0.62, circle_area(2 mm), 10 bar, 870 kg/m^3)", &env()).unwrap();
+        let f = Check::compile(
+            "orifice_flow(0.62, circle_area(2 mm), 10 bar, 870 kg/m^3)",
+            &env(),
+        )
+        .unwrap();
         let q = f.evaluate_quantity(&Values::new()).unwrap();
         assert!((q.si() * 60_000.0 - 5.6034).abs() < 1e-3);
-        let (_, message) = Check::compile("orifice_flow(0.62, 2 mm, 10 bar, 870 kg/m^3)", &env()).unwrap_err();
+        let (_, message) =
+            Check::compile("orifice_flow(0.62, 2 mm, 10 bar, 870 kg/m^3)", &env()).unwrap_err();
         assert!(message.contains("area"), "{message}");
     }
 
@@ -365,7 +389,10 @@ mod tests {
         // ASTM D341 through the VI-100 ν₁₀₀ of VG 46 (6.760 cSt, derived): 20.56 cSt at 60 °C.
         let f = Check::compile("viscosity_at(46 cSt, 100, oil_temperature)", &env()).unwrap();
         let mut values = Values::new();
-        values.insert("oil_temperature".into(), parse_as("60 degC", Kind::Temperature).unwrap());
+        values.insert(
+            "oil_temperature".into(),
+            parse_as("60 degC", Kind::Temperature).unwrap(),
+        );
         let nu = f.evaluate_quantity(&values).unwrap().si() * 1e6;
         assert!((nu - 20.56).abs() < 0.05, "{nu}");
     }

@@ -120,7 +120,10 @@ impl RuleBase {
             if e.symptoms.is_empty() {
                 lints.push(Lint {
                     at,
-                    message: format!("rule `{}` names no symptom, so no complaint reaches it", e.id),
+                    message: format!(
+                        "rule `{}` names no symptom, so no complaint reaches it",
+                        e.id
+                    ),
                 });
             }
         }

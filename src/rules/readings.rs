@@ -32,7 +32,12 @@ impl Readings {
 
     /// Parse `text` as the reading `name` (`name` or `name@point`), checking
     /// the name against the vocabulary and the unit against its kind.
-    pub fn insert_text(&mut self, base: &RuleBase, name: &str, text: &str) -> Result<(), ReadingError> {
+    pub fn insert_text(
+        &mut self,
+        base: &RuleBase,
+        name: &str,
+        text: &str,
+    ) -> Result<(), ReadingError> {
         let err = |message: String| ReadingError {
             name: name.to_string(),
             message,
@@ -92,7 +97,9 @@ impl RuleBase {
         let points: Vec<String> = self.points.iter().map(|p| p.id.clone()).collect();
         let constant: Vec<(String, Quantity)> = values
             .iter()
-            .filter(|(k, _)| !k.contains('@') && (self.settings.contains_key(*k) || self.is_nameplate(k)))
+            .filter(|(k, _)| {
+                !k.contains('@') && (self.settings.contains_key(*k) || self.is_nameplate(k))
+            })
             .map(|(k, v)| (k.clone(), *v))
             .collect();
         for (name, value) in &constant {

@@ -8,7 +8,7 @@ use regex::{Regex, RegexBuilder};
 
 use super::formulas::{self, Check, Evidence, TypeEnv};
 use super::rule_file::{
-    CautionEntry, CauseEntry, Circuit, DerivedEntry, Placement, PointEntry, QuantityEntry,
+    CauseEntry, CautionEntry, Circuit, DerivedEntry, Placement, PointEntry, QuantityEntry,
     QuantitySource, RuleEntry, RuleFile, SettingEntry, SymptomEntry,
 };
 use super::source_map::{Position, SourceMap};
@@ -201,7 +201,11 @@ impl RuleBase {
             }
         }
         self.sources = parsed.iter().map(|p| p.source.clone()).collect();
-        self.points = layers.operating_points.values().map(|(e, _)| e.clone()).collect();
+        self.points = layers
+            .operating_points
+            .values()
+            .map(|(e, _)| e.clone())
+            .collect();
         for (id, (entry, origin)) in layers.quantities {
             match self.quantity(entry, origin.clone()) {
                 Ok(def) => {
@@ -272,7 +276,10 @@ impl RuleBase {
                 &origin,
                 &entry.id,
                 Some("effort"),
-                format!("effort must be from 1 (easy) to 5 (hard), found {}", entry.effort),
+                format!(
+                    "effort must be from 1 (easy) to 5 (hard), found {}",
+                    entry.effort
+                ),
             ));
         }
         let range = match &entry.range {
@@ -325,7 +332,10 @@ impl RuleBase {
                         &origin,
                         &entry.id,
                         Some("phrases"),
-                        format!("bad phrase pattern `{phrase}`: {}", first_line(&e.to_string())),
+                        format!(
+                            "bad phrase pattern `{phrase}`: {}",
+                            first_line(&e.to_string())
+                        ),
                     )
                 })?;
             patterns.push(regex);
@@ -394,7 +404,10 @@ impl RuleBase {
                 &origin,
                 &entry.id,
                 Some("formula"),
-                format!("derived quantity `{}` depends on itself through other derived quantities", entry.id),
+                format!(
+                    "derived quantity `{}` depends on itself through other derived quantities",
+                    entry.id
+                ),
             ));
         }
     }
@@ -471,7 +484,12 @@ impl RuleBase {
         for symptom in &entry.symptoms {
             if !self.symptoms.iter().any(|s| &s.entry.id == symptom) {
                 let known = self.symptoms.iter().map(|s| s.entry.id.as_str());
-                errors.push(self.invalid(&origin, &id, Some("symptoms"), unknown("symptom", symptom, known)));
+                errors.push(self.invalid(
+                    &origin,
+                    &id,
+                    Some("symptoms"),
+                    unknown("symptom", symptom, known),
+                ));
             }
         }
         if !(entry.prior > 0.0 && entry.prior <= 1.0) {
@@ -501,7 +519,14 @@ impl RuleBase {
         let evidence = match Evidence::compile(&entry.evidence, &env) {
             Ok(e) => Some(e),
             Err((offset, message)) => {
-                errors.push(self.formula_error(&origin, &id, "evidence", &entry.evidence, offset, &message));
+                errors.push(self.formula_error(
+                    &origin,
+                    &id,
+                    "evidence",
+                    &entry.evidence,
+                    offset,
+                    &message,
+                ));
                 None
             }
         };
@@ -518,22 +543,34 @@ impl RuleBase {
 
     /// A rule by id, or an error with the nearest id.
     pub fn rule_by_id(&self, id: &str) -> Result<&RuleDef, RulesError> {
-        self.rules.iter().find(|r| r.entry.id == id).ok_or_else(|| RulesError::UnknownId {
-            what: "rule",
-            id: id.to_string(),
-            suggestion: crate::suggest::suggest(id, self.rules.iter().map(|r| r.entry.id.as_str()))
+        self.rules
+            .iter()
+            .find(|r| r.entry.id == id)
+            .ok_or_else(|| RulesError::UnknownId {
+                what: "rule",
+                id: id.to_string(),
+                suggestion: crate::suggest::suggest(
+                    id,
+                    self.rules.iter().map(|r| r.entry.id.as_str()),
+                )
                 .map(str::to_string),
-        })
+            })
     }
 
     /// A symptom by id, or an error with the nearest id.
     pub fn symptom_by_id(&self, id: &str) -> Result<&SymptomDef, RulesError> {
-        self.symptoms.iter().find(|s| s.entry.id == id).ok_or_else(|| RulesError::UnknownId {
-            what: "symptom",
-            id: id.to_string(),
-            suggestion: crate::suggest::suggest(id, self.symptoms.iter().map(|s| s.entry.id.as_str()))
+        self.symptoms
+            .iter()
+            .find(|s| s.entry.id == id)
+            .ok_or_else(|| RulesError::UnknownId {
+                what: "symptom",
+                id: id.to_string(),
+                suggestion: crate::suggest::suggest(
+                    id,
+                    self.symptoms.iter().map(|s| s.entry.id.as_str()),
+                )
                 .map(str::to_string),
-        })
+            })
     }
 
     /// The symptoms whose phrases match a complaint, in rule-base order.
@@ -550,12 +587,17 @@ impl RuleBase {
             Some((b, p)) => (b, Some(p)),
             None => (name, None),
         };
-        let q = self.quantities.get(base).ok_or_else(|| {
-            unknown("quantity", base, self.quantities.keys().map(String::as_str))
-        })?;
+        let q = self
+            .quantities
+            .get(base)
+            .ok_or_else(|| unknown("quantity", base, self.quantities.keys().map(String::as_str)))?;
         if let Some(p) = point {
             if !self.points.iter().any(|x| x.id == p) {
-                return Err(unknown("operating point", p, self.points.iter().map(|x| x.id.as_str())));
+                return Err(unknown(
+                    "operating point",
+                    p,
+                    self.points.iter().map(|x| x.id.as_str()),
+                ));
             }
         }
         Ok(q)
@@ -614,10 +656,14 @@ macro_rules! merge {
                 replaces: None,
             };
             if let Some((_, old)) = $layers.$field.get(&entry.id) {
-                let same_layer = !$parsed.user
-                    || $layers.user_ids.contains(&(entry.id.clone(), $what));
+                let same_layer =
+                    !$parsed.user || $layers.user_ids.contains(&(entry.id.clone(), $what));
                 if same_layer {
-                    $dups.push((format!("{} `{}`", $what, entry.id), old.at(), origin_at(&origin)));
+                    $dups.push((
+                        format!("{} `{}`", $what, entry.id),
+                        old.at(),
+                        origin_at(&origin),
+                    ));
                 } else {
                     origin.replaces = Some(old.at());
                 }
@@ -625,7 +671,9 @@ macro_rules! merge {
             if $parsed.user {
                 $layers.user_ids.insert((entry.id.clone(), $what));
             }
-            $layers.$field.insert(entry.id.clone(), (entry.clone(), origin));
+            $layers
+                .$field
+                .insert(entry.id.clone(), (entry.clone(), origin));
         }
     };
 }
@@ -660,7 +708,10 @@ fn parse_file(source: &SourceMap) -> Result<RuleFile, RulesError> {
         return Err(invalid_at(
             &source.name,
             None,
-            format!("unsupported rule-file version {} (this spoolsleuth reads version 1)", file.version),
+            format!(
+                "unsupported rule-file version {} (this spoolsleuth reads version 1)",
+                file.version
+            ),
         ));
     }
     Ok(file)

@@ -94,7 +94,11 @@ impl SourceMap {
         let start = byte_index(line, position.column.checked_sub(1)?);
         let raw = line.get(start..)?.trim_end();
         let quoted = raw.starts_with('"') || raw.starts_with('\'');
-        let content = if quoted { &raw[1..raw.len().saturating_sub(1).max(1)] } else { raw };
+        let content = if quoted {
+            &raw[1..raw.len().saturating_sub(1).max(1)]
+        } else {
+            raw
+        };
         Some((content.to_string(), position.column + usize::from(quoted)))
     }
 
@@ -116,7 +120,9 @@ fn char_column(line: &str, byte: usize) -> usize {
 }
 
 fn byte_index(line: &str, chars: usize) -> usize {
-    line.char_indices().nth(chars).map_or(line.len(), |(i, _)| i)
+    line.char_indices()
+        .nth(chars)
+        .map_or(line.len(), |(i, _)| i)
 }
 
 #[cfg(test)]
@@ -130,9 +136,21 @@ mod tests {
         let map = SourceMap::new("rules/x.yaml", TEXT);
         assert_eq!(map.entry("second"), Some(Position { line: 5, column: 9 }));
         let check = map.key("second", "check").unwrap();
-        assert_eq!(check, Position { line: 7, column: 12 });
+        assert_eq!(
+            check,
+            Position {
+                line: 7,
+                column: 12
+            }
+        );
         assert_eq!(map.scalar_at(check), Some(("c < d".to_string(), 13)));
-        assert_eq!(map.key("first", "check"), Some(Position { line: 4, column: 12 }));
+        assert_eq!(
+            map.key("first", "check"),
+            Some(Position {
+                line: 4,
+                column: 12
+            })
+        );
         // A key missing from the entry falls back to the entry.
         assert_eq!(map.key("first", "evidence"), map.entry("first"));
         assert_eq!(map.render(Some(check), "bad"), "rules/x.yaml:7:12: bad");
