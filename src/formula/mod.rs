@@ -44,4 +44,6 @@ pub fn parse(source: &str) -> Result<Expr, FormulaError> {
 }
 
 #[cfg(test)]
+mod properties;
+#[cfg(test)]
 mod testing;
