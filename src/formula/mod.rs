@@ -7,6 +7,8 @@
 //! units are read exactly as technician input is read. [`Template`] puts
 //! computed values into evidence sentences.
 
+#![warn(missing_docs)]
+
 mod checker;
 mod environment;
 mod eval;
