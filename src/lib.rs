@@ -2,7 +2,8 @@
 //! flow-control circuits.
 //!
 //! The library is layered: [`units`] reads and prints values with their
-//! dimensions, [`physics`] holds the checked fluid-power formulas, and the
+//! dimensions, [`formula`] compiles and evaluates the rule base's unit-aware
+//! checks, [`physics`] holds the checked fluid-power formulas, and the
 //! command-line glue in `cli` turns arguments into calls and reports. See
 //! DEVELOPERS.md for the architecture.
 

@@ -67,7 +67,8 @@ impl<'a> Checker<'a> {
         }
     }
 
-    /// The readings checked so far (`name` or `name@point`) with their types.
+    /// The readings the checked formula reads (`name` or `name@point`) with
+    /// their types, and the registered functions it calls.
     pub fn into_parts(self) -> (BTreeMap<String, ValueType>, FunctionTable) {
         (self.inputs, self.used)
     }

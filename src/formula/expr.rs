@@ -33,7 +33,7 @@ impl Literal {
         })
     }
 
-    /// True for a plain whole number with no unit (a valid power).
+    /// The value as a power, for a plain whole number from -9 to 9 with no unit.
     pub fn as_exponent(&self) -> Option<i8> {
         let v = self.value.si();
         (self.unit.is_none() && v.fract() == 0.0 && v.abs() <= 9.0).then_some(v as i8)

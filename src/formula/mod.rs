@@ -7,6 +7,8 @@
 //! units are read exactly as technician input is read. [`Template`] puts
 //! computed values into evidence sentences.
 
+#![warn(missing_docs)]
+
 mod checker;
 mod environment;
 mod eval;
@@ -43,5 +45,7 @@ pub fn parse(source: &str) -> Result<Expr, FormulaError> {
     Parser::parse(source)
 }
 
+#[cfg(test)]
+mod properties;
 #[cfg(test)]
 mod testing;

@@ -248,3 +248,153 @@ fn in_unit(q: Quantity, unit: &UnitExpr) -> String {
         Scale::Saybolt => format!("{} {}", format_number(q.si()), q.dimension()),
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::formula::testing::{environment, functions, readings};
+
+    #[track_caller]
+    fn compile(src: &str) -> Template {
+        Template::compile(src, &environment(), &functions())
+            .unwrap_or_else(|e| panic!("{src}: {e}"))
+    }
+
+    #[track_caller]
+    fn render(src: &str, pairs: &[(&str, &str)], system: UnitSystem) -> String {
+        match compile(src).render(&readings(pairs), system) {
+            Ok(Outcome::Known(text)) => text,
+            other => panic!("{src}: {other:?}"),
+        }
+    }
+
+    const READINGS: &[(&str, &str)] = &[
+        ("supply_pressure", "150 bar"),
+        ("load_pressure", "140 bar"),
+        ("spring_setting", "12 bar"),
+        ("flow@loaded", "30 L/min"),
+        ("efficiency", "0.92"),
+        ("cd", "0.62"),
+        ("oil_temperature@hot", "70 degC"),
+        ("oil_temperature@cold", "60 degC"),
+    ];
+
+    #[test]
+    fn placeholders_are_printed_in_units() {
+        let sentence = "the drop across the orifice is {supply_pressure - load_pressure in bar}, below the {spring_setting}";
+        assert_eq!(
+            render(sentence, READINGS, UnitSystem::Metric),
+            "the drop across the orifice is 10 bar, below the 12 bar"
+        );
+        // 12 bar = 174.05 psi (NIST SP 811 psi factor); `in bar` stays in bar.
+        assert_eq!(
+            render(sentence, READINGS, UnitSystem::Us),
+            "the drop across the orifice is 10 bar, below the 174 psi"
+        );
+        let cases = [
+            ("{flow@loaded in gpm}", "7.925 gpm"),
+            ("{flow@loaded in m^3/s}", "0.0005 m^3/s"),
+            ("{flow@loaded}", "30 L/min"),
+            // A fraction prints in percent, a plain ratio as a number.
+            ("{efficiency}", "92 %"),
+            ("{efficiency in %}", "92 %"),
+            ("{cd}", "0.62"),
+            ("{oil_temperature@hot}", "70 °C"),
+            ("{oil_temperature@hot in degF}", "158 °F"),
+            ("{oil_temperature@hot - oil_temperature@cold}", "10 K"),
+            (
+                "{oil_temperature@hot - oil_temperature@cold in dF}",
+                "18 Δ°F",
+            ),
+            ("{supply_pressure > load_pressure}", "true"),
+            ("{2 * flow@loaded}", "60 L/min"),
+            (
+                "{{braces}} stay: {spring_setting in psi}",
+                "{braces} stay: 174 psi",
+            ),
+        ];
+        for (src, text) in cases {
+            assert_eq!(render(src, READINGS, UnitSystem::Metric), text, "{src}");
+        }
+        assert_eq!(
+            render(
+                "{oil_temperature@hot - oil_temperature@cold}",
+                READINGS,
+                UnitSystem::Us
+            ),
+            "18 Δ°F"
+        );
+    }
+
+    #[test]
+    fn missing_readings_and_inputs() {
+        let t = compile("{flow@loaded} of {flow_set}, at {supply_pressure in psi}");
+        assert_eq!(t.inputs(), ["flow@loaded", "flow_set", "supply_pressure"]);
+        assert_eq!(
+            t.render(&readings(READINGS), UnitSystem::Metric),
+            Ok(Outcome::Missing(vec!["flow_set".to_string()]))
+        );
+        assert_eq!(
+            t.source(),
+            "{flow@loaded} of {flow_set}, at {supply_pressure in psi}"
+        );
+    }
+
+    #[track_caller]
+    fn error(src: &str, message: &str, span: (usize, usize)) {
+        let e = Template::compile(src, &environment(), &functions()).expect_err(src);
+        assert_eq!(e.to_string(), message, "{src}");
+        assert_eq!(e.span, Span::new(span.0, span.1), "span in {src}");
+    }
+
+    #[test]
+    fn errors_point_into_the_template() {
+        error(
+            "at { suply_pressure }",
+            "unknown quantity `suply_pressure` (did you mean `supply_pressure`?)",
+            (5, 19),
+        );
+        error(
+            "at {flow in L/mn}",
+            "unknown unit `L/mn` (did you mean `L/min`?)",
+            (12, 16),
+        );
+        error(
+            "at {flow in bar}",
+            "cannot show a flow in `bar`, which is a pressure unit",
+            (12, 15),
+        );
+        error("at {flow", "unclosed `{` in the template", (3, 4));
+        error(
+            "at } here",
+            "unmatched `}` (write `}}` for a brace)",
+            (3, 4),
+        );
+        error(
+            "at {  } here",
+            "empty placeholder: write a formula between the braces",
+            (3, 7),
+        );
+        error(
+            "{flow + 3 bar in bar}",
+            "cannot add a pressure to a flow",
+            (1, 13),
+        );
+        let e = compile("{supply_pressure / (load_pressure - spring_setting)}")
+            .render(
+                &readings(&[
+                    ("supply_pressure", "1 bar"),
+                    ("load_pressure", "1 bar"),
+                    ("spring_setting", "1 bar"),
+                ]),
+                UnitSystem::Metric,
+            )
+            .unwrap_err();
+        assert_eq!(e.span, Span::new(1, 51));
+        // A formula that merely contains `in` as a length unit still compiles.
+        assert_eq!(
+            render("{bore - 0.5 in * 2}", &[("bore", "2 in")], UnitSystem::Us),
+            "1 in"
+        );
+    }
+}
