@@ -730,11 +730,15 @@ fn yaml_message(e: &serde_yaml::Error) -> String {
 
 /// For "unknown field `x`, expected one of `a`, `b`", add the nearest.
 fn suggest_field(text: &str) -> Option<String> {
-    let rest = text.strip_prefix("unknown field `")?;
+    let start = text.find("unknown field `")?;
+    let (prefix, rest) = text.split_at(start);
+    let rest = rest.strip_prefix("unknown field `")?;
     let (field, expected) = rest.split_once('`')?;
     let names: Vec<&str> = expected.split('`').skip(1).step_by(2).collect();
     let near = crate::suggest::suggest(field, names.iter().copied())?;
-    Some(format!("unknown field `{field}` (did you mean `{near}`?)"))
+    Some(format!(
+        "{prefix}unknown field `{field}` (did you mean `{near}`?)"
+    ))
 }
 
 /// The default rule files, named `rules/<file>`.
@@ -793,3 +797,48 @@ fn read_dir(dir: &Path) -> Result<Vec<SourceMap>, RulesError> {
 
 /// The largest rule file read (1 MiB): far above any hand-written file.
 pub const MAX_RULE_FILE_BYTES: u64 = 1 << 20;
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn the_default_rule_base_loads_and_every_example_holds() {
+        let base = RuleBase::load(&[]).unwrap_or_else(|e| panic!("{e}"));
+        assert!(!base.rules.is_empty());
+        let results = base.run_examples();
+        let failed: Vec<String> = results
+            .iter()
+            .filter(|r| !r.passed)
+            .map(|r| format!("{}: {}: {}", r.rule, r.example, r.detail))
+            .collect();
+        assert!(failed.is_empty(), "{}", failed.join("\n"));
+    }
+
+    fn load_extra(name: &str, text: &str) -> String {
+        let mut sources = default_sources();
+        sources.push((SourceMap::new(name, text), true));
+        match RuleBase::from_sources(sources) {
+            Ok(_) => "loaded".to_string(),
+            Err(e) => e.to_string(),
+        }
+    }
+
+    #[test]
+    fn errors_name_the_file_line_and_column() {
+        let typo = "version: 1\nsettings:\n  - id: x\n    kind: pressure\n    valeu: 3 bar\n    source: from memory\n";
+        assert_eq!(
+            load_extra("mine/typo.yaml", typo),
+            "mine/typo.yaml:5:5: settings[0]: unknown field `valeu` (did you mean `value`?)"
+        );
+        let dimension = "version: 1\nderived:\n  - id: odd\n    kind: pressure\n    label: Odd\n    formula: supply_pressure + 3 L/min\n";
+        let message = load_extra("mine/odd.yaml", dimension);
+        assert!(message.starts_with("mine/odd.yaml:6:14: "), "{message}");
+        assert!(message.contains("flow"), "{message}");
+        let unknown = "version: 1\nderived:\n  - id: odd\n    kind: pressure\n    label: Odd\n    formula: suply_pressure * 2\n";
+        assert_eq!(
+            load_extra("mine/unknown.yaml", unknown),
+            "mine/unknown.yaml:6:14: unknown quantity `suply_pressure` (did you mean `supply_pressure`?)"
+        );
+    }
+}
