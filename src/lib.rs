@@ -8,6 +8,8 @@
 
 pub mod cli;
 pub mod error;
+pub mod index;
+pub mod notes;
 pub mod output;
 pub mod physics;
 pub mod units;
