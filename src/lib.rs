@@ -12,6 +12,7 @@ pub mod index;
 pub mod notes;
 pub mod output;
 pub mod physics;
+pub mod search;
 pub mod units;
 
 mod run;

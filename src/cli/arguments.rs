@@ -13,4 +13,7 @@ pub struct Arguments {
 
 /// The subcommands.
 #[derive(Debug, Subcommand)]
-pub enum Command {}
+pub enum Command {
+    /// Past case notes: add, search, show, stats.
+    Cases(super::cases_arguments::CasesArguments),
+}

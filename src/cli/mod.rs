@@ -2,6 +2,8 @@
 //! into library calls. Nothing below this folder imports clap.
 
 mod arguments;
+mod cases_arguments;
+mod cases_command;
 
 pub use arguments::Arguments;
 
@@ -9,5 +11,7 @@ use crate::error::{Error, ExitStatus};
 
 /// Execute parsed arguments.
 pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
-    match arguments.command {}
+    match arguments.command {
+        arguments::Command::Cases(cases) => cases_command::execute(cases),
+    }
 }

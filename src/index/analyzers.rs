@@ -3,7 +3,10 @@
 //! use the same chains without the synonym filter, because the index already
 //! holds every synonym at each position.
 
-use tantivy::tokenizer::{Language, LowerCaser, RemoveLongFilter, SimpleTokenizer, Stemmer, TextAnalyzer, TokenizerManager};
+use tantivy::tokenizer::{
+    Language, LowerCaser, RemoveLongFilter, SimpleTokenizer, Stemmer, TextAnalyzer,
+    TokenizerManager,
+};
 use tantivy::Index;
 
 use super::SynonymFilter;

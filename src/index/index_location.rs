@@ -26,9 +26,14 @@ impl IndexLocation {
         if let Some(chosen) = chosen {
             return Ok(IndexLocation::Dir(chosen.to_path_buf()));
         }
-        let cache = directories::ProjectDirs::from("", "", "spoolsleuth").ok_or(IndexError::NoCacheDir)?;
-        let absolute = std::fs::canonicalize(dir).unwrap_or_else(|_| std::path::absolute(dir).unwrap_or_else(|_| dir.clone()));
-        let name = format!("index-{:016x}", content_hash(absolute.to_string_lossy().as_bytes()));
+        let cache =
+            directories::ProjectDirs::from("", "", "spoolsleuth").ok_or(IndexError::NoCacheDir)?;
+        let absolute = std::fs::canonicalize(dir)
+            .unwrap_or_else(|_| std::path::absolute(dir).unwrap_or_else(|_| dir.clone()));
+        let name = format!(
+            "index-{:016x}",
+            content_hash(absolute.to_string_lossy().as_bytes())
+        );
         Ok(IndexLocation::Dir(cache.cache_dir().join(name)))
     }
 }

@@ -51,7 +51,9 @@ impl Manifest {
         let path = dir.join(MANIFEST_FILE);
         let text = match fs::read_to_string(&path) {
             Ok(text) => text,
-            Err(e) if e.kind() == std::io::ErrorKind::NotFound => return Err(ManifestProblem::Missing),
+            Err(e) if e.kind() == std::io::ErrorKind::NotFound => {
+                return Err(ManifestProblem::Missing)
+            }
             Err(e) => return Err(ManifestProblem::Unreadable(e.to_string())),
         };
         Self::parse(&text)
@@ -93,7 +95,10 @@ impl Manifest {
     fn render(&self) -> String {
         let mut out = format!("{MAGIC} {SCHEMA_VERSION}\n");
         for (name, entry) in &self.entries {
-            out.push_str(&format!("{}\t{}\t{:016x}\t{name}", entry.size, entry.mtime_ns, entry.hash));
+            out.push_str(&format!(
+                "{}\t{}\t{:016x}\t{name}",
+                entry.size, entry.mtime_ns, entry.hash
+            ));
             if let Some(broken) = &entry.broken {
                 out.push('\t');
                 out.push_str(&broken.replace(['\t', '\n', '\r'], " "));
@@ -109,17 +114,23 @@ impl Manifest {
             .prefix(".spoolsleuth-manifest-")
             .tempfile_in(dir)
             .map_err(|e| IndexError::io(dir, e))?;
-        temp.write_all(self.render().as_bytes()).map_err(|e| IndexError::io(temp.path(), e))?;
-        temp.as_file().sync_all().map_err(|e| IndexError::io(temp.path(), e))?;
+        temp.write_all(self.render().as_bytes())
+            .map_err(|e| IndexError::io(temp.path(), e))?;
+        temp.as_file()
+            .sync_all()
+            .map_err(|e| IndexError::io(temp.path(), e))?;
         let target = dir.join(MANIFEST_FILE);
-        temp.persist(&target).map_err(|e| IndexError::io(&target, e.error))?;
+        temp.persist(&target)
+            .map_err(|e| IndexError::io(&target, e.error))?;
         Ok(())
     }
 
     /// Remove the manifest from `dir`, if there.
     pub fn remove(dir: &Path) -> IndexResult<()> {
         match fs::remove_file(dir.join(MANIFEST_FILE)) {
-            Err(e) if e.kind() != std::io::ErrorKind::NotFound => Err(IndexError::io(dir.join(MANIFEST_FILE), e)),
+            Err(e) if e.kind() != std::io::ErrorKind::NotFound => {
+                Err(IndexError::io(dir.join(MANIFEST_FILE), e))
+            }
             _ => Ok(()),
         }
     }
@@ -144,7 +155,10 @@ mod tests {
         let dir = tempfile::tempdir().unwrap();
         manifest.save(dir.path()).unwrap();
         let back = Manifest::load(dir.path()).unwrap();
-        assert_eq!(back.entries["a b.md"].broken.as_deref(), Some("a b.md:3:1: unknown field"));
+        assert_eq!(
+            back.entries["a b.md"].broken.as_deref(),
+            Some("a b.md:3:1: unknown field")
+        );
         assert_eq!(back.entries["a b.md"].hash, 0xdead_beef);
     }
 
@@ -152,7 +166,13 @@ mod tests {
     fn reports_missing_old_and_garbled_manifests() {
         let dir = tempfile::tempdir().unwrap();
         assert_eq!(Manifest::load(dir.path()), Err(ManifestProblem::Missing));
-        assert_eq!(Manifest::parse(&format!("{MAGIC} 0\n")), Err(ManifestProblem::OtherVersion("0".into())));
-        assert!(matches!(Manifest::parse(&format!("{MAGIC} {SCHEMA_VERSION}\nx\t1")), Err(ManifestProblem::Unreadable(_))));
+        assert_eq!(
+            Manifest::parse(&format!("{MAGIC} 0\n")),
+            Err(ManifestProblem::OtherVersion("0".into()))
+        );
+        assert!(matches!(
+            Manifest::parse(&format!("{MAGIC} {SCHEMA_VERSION}\nx\t1")),
+            Err(ManifestProblem::Unreadable(_))
+        ));
     }
 }

@@ -13,7 +13,7 @@ mod note_schema;
 mod sync_report;
 mod synonym_filter;
 
-pub use analyzers::{register_index_analyzers, query_tokenizers, EN_ANALYZER, PLAIN_ANALYZER};
+pub use analyzers::{query_tokenizers, register_index_analyzers, EN_ANALYZER, PLAIN_ANALYZER};
 pub use content_hash::content_hash;
 pub use index_error::IndexError;
 pub use index_location::IndexLocation;
@@ -21,7 +21,7 @@ pub use manifest::{Manifest, ManifestEntry, ManifestProblem, MANIFEST_FILE};
 pub use note_index::{NoteIndex, WRITER_MEMORY_BUDGET};
 pub use note_schema::{NoteSchema, SCHEMA_VERSION};
 pub use sync_report::SyncReport;
-pub use synonym_filter::{rewrite_phrases, SynonymFilter};
+pub use synonym_filter::{is_trade_word, rewrite_phrases, SynonymFilter};
 
 /// Result alias for this module.
 pub type IndexResult<T> = Result<T, IndexError>;

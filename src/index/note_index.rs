@@ -13,8 +13,8 @@ use tantivy::{Index, IndexReader, IndexWriter, ReloadPolicy, Searcher, TantivyEr
 
 use super::manifest::{ManifestProblem, MANIFEST_FILE};
 use super::{
-    content_hash, register_index_analyzers, IndexError, IndexLocation, IndexResult, Manifest, ManifestEntry, NoteSchema,
-    SyncReport,
+    content_hash, register_index_analyzers, IndexError, IndexLocation, IndexResult, Manifest,
+    ManifestEntry, NoteSchema, SyncReport,
 };
 use crate::notes::{Note, NoteFile, NotesFolder};
 
@@ -39,13 +39,19 @@ pub struct NoteIndex {
 
 impl std::fmt::Debug for NoteIndex {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        f.debug_struct("NoteIndex").field("dir", &self.dir).field("folder", &self.folder).finish_non_exhaustive()
+        f.debug_struct("NoteIndex")
+            .field("dir", &self.dir)
+            .field("folder", &self.folder)
+            .finish_non_exhaustive()
     }
 }
 
 impl NoteIndex {
     /// Open the index of `folder` at `location`, bringing it up to date.
-    pub fn open(folder: NotesFolder, location: &IndexLocation) -> IndexResult<(NoteIndex, SyncReport)> {
+    pub fn open(
+        folder: NotesFolder,
+        location: &IndexLocation,
+    ) -> IndexResult<(NoteIndex, SyncReport)> {
         match location {
             IndexLocation::Memory => Self::open_in_memory(folder),
             IndexLocation::Dir(dir) => Self::open_dir(folder, dir),
@@ -83,10 +89,17 @@ impl NoteIndex {
     /// Rebuild from the notes after the index failed during a search.
     pub fn rebuild_after_failure(&mut self, failure: &str) -> IndexResult<SyncReport> {
         let Some(dir) = self.dir.clone() else {
-            return Err(IndexError::io("memory", std::io::Error::other(failure.to_string())));
+            return Err(IndexError::io(
+                "memory",
+                std::io::Error::other(failure.to_string()),
+            ));
         };
         let _lock = lock(&dir)?;
-        let (fresh, report) = Self::rebuild(self.folder.clone(), &dir, format!("the index failed: {failure}"))?;
+        let (fresh, report) = Self::rebuild(
+            self.folder.clone(),
+            &dir,
+            format!("the index failed: {failure}"),
+        )?;
         *self = fresh;
         Ok(report)
     }
@@ -97,13 +110,17 @@ impl NoteIndex {
         register_index_analyzers(&index);
         let files = folder.list()?;
         let memory = Path::new("memory");
-        let mut writer: IndexWriter = index.writer_with_num_threads(1, UPDATE_MEMORY_BUDGET).map_err(|e| tantivy(memory, e))?;
+        let mut writer: IndexWriter = index
+            .writer_with_num_threads(1, UPDATE_MEMORY_BUDGET)
+            .map_err(|e| tantivy(memory, e))?;
         let mut report = SyncReport::default();
         for file in &files {
             let text = folder.read(&file.name)?;
             match Note::parse(Path::new(&file.name), &text) {
                 Ok(note) => {
-                    writer.add_document(schema.document(&note)).map_err(|e| tantivy(memory, e))?;
+                    writer
+                        .add_document(schema.document(&note))
+                        .map_err(|e| tantivy(memory, e))?;
                     report.added += 1;
                 }
                 Err(error) => report.broken.push(qualify(&folder, &error.to_string())),
@@ -111,7 +128,16 @@ impl NoteIndex {
         }
         writer.commit().map_err(|e| tantivy(memory, e))?;
         let reader = manual_reader(&index).map_err(|e| tantivy(memory, e))?;
-        Ok((NoteIndex { dir: None, folder, index, reader, schema }, report))
+        Ok((
+            NoteIndex {
+                dir: None,
+                folder,
+                index,
+                reader,
+                schema,
+            },
+            report,
+        ))
     }
 
     fn open_dir(folder: NotesFolder, dir: &Path) -> IndexResult<(NoteIndex, SyncReport)> {
@@ -156,7 +182,12 @@ impl NoteIndex {
             let text = self.folder.read(&file.name)?;
             let hash = content_hash(text.as_bytes());
             let known = manifest.entries.get(&file.name);
-            let entry = |broken| ManifestEntry { broken, hash, mtime_ns: file.mtime_ns, size: file.size };
+            let entry = |broken| ManifestEntry {
+                broken,
+                hash,
+                mtime_ns: file.mtime_ns,
+                size: file.size,
+            };
             if known.is_some_and(|k| k.hash == hash) {
                 // Touched but not changed: remember the new time only.
                 let broken = known.and_then(|k| k.broken.clone());
@@ -164,10 +195,15 @@ impl NoteIndex {
                 continue;
             }
             let writer = self.writer(&mut writer, &dir)?;
-            writer.delete_term(Term::from_field_text(self.schema.id, &name_to_id(&file.name)));
+            writer.delete_term(Term::from_field_text(
+                self.schema.id,
+                &name_to_id(&file.name),
+            ));
             let broken = match Note::parse(Path::new(&file.name), &text) {
                 Ok(note) => {
-                    writer.add_document(self.schema.document(&note)).map_err(|e| tantivy(&dir, e))?;
+                    writer
+                        .add_document(self.schema.document(&note))
+                        .map_err(|e| tantivy(&dir, e))?;
                     None
                 }
                 Err(error) => Some(error.to_string()),
@@ -182,7 +218,9 @@ impl NoteIndex {
         if let Some(mut writer) = writer {
             writer.commit().map_err(|e| tantivy(&dir, e))?;
             manifest.save(&dir)?;
-            writer.wait_merging_threads().map_err(|e| tantivy(&dir, e))?;
+            writer
+                .wait_merging_threads()
+                .map_err(|e| tantivy(&dir, e))?;
             self.reader.reload().map_err(|e| tantivy(&dir, e))?;
         } else {
             manifest.save(&dir)?;
@@ -191,22 +229,39 @@ impl NoteIndex {
         Ok((self, report))
     }
 
-    fn writer<'w>(&self, writer: &'w mut Option<IndexWriter>, dir: &Path) -> IndexResult<&'w mut IndexWriter> {
+    fn writer<'w>(
+        &self,
+        writer: &'w mut Option<IndexWriter>,
+        dir: &Path,
+    ) -> IndexResult<&'w mut IndexWriter> {
         if writer.is_none() {
-            *writer = Some(self.index.writer_with_num_threads(1, UPDATE_MEMORY_BUDGET).map_err(|e| tantivy(dir, e))?);
+            *writer = Some(
+                self.index
+                    .writer_with_num_threads(1, UPDATE_MEMORY_BUDGET)
+                    .map_err(|e| tantivy(dir, e))?,
+            );
         }
-        writer.as_mut().ok_or_else(|| IndexError::io(dir, std::io::Error::other("no index writer")))
+        writer
+            .as_mut()
+            .ok_or_else(|| IndexError::io(dir, std::io::Error::other("no index writer")))
     }
 
     /// Index every note from scratch; caller holds the lock.
-    fn rebuild(folder: NotesFolder, dir: &Path, reason: String) -> IndexResult<(NoteIndex, SyncReport)> {
+    fn rebuild(
+        folder: NotesFolder,
+        dir: &Path,
+        reason: String,
+    ) -> IndexResult<(NoteIndex, SyncReport)> {
         Manifest::remove(dir)?;
         remove_index_files(dir)?;
         let schema = NoteSchema::new();
-        let index = Index::create_in_dir(dir, schema.schema.clone()).map_err(|e| tantivy(dir, e))?;
+        let index =
+            Index::create_in_dir(dir, schema.schema.clone()).map_err(|e| tantivy(dir, e))?;
         register_index_analyzers(&index);
         let threads = std::thread::available_parallelism().map_or(1, |n| n.get().min(2));
-        let mut writer: IndexWriter = index.writer_with_num_threads(threads, WRITER_MEMORY_BUDGET).map_err(|e| tantivy(dir, e))?;
+        let mut writer: IndexWriter = index
+            .writer_with_num_threads(threads, WRITER_MEMORY_BUDGET)
+            .map_err(|e| tantivy(dir, e))?;
         let files = folder.list()?;
         let progress = progress_bar(files.len());
         let mut manifest = Manifest::default();
@@ -218,7 +273,9 @@ impl NoteIndex {
             let text = folder.read(&file.name)?;
             let broken = match Note::parse(Path::new(&file.name), &text) {
                 Ok(note) => {
-                    writer.add_document(schema.document(&note)).map_err(|e| tantivy(dir, e))?;
+                    writer
+                        .add_document(schema.document(&note))
+                        .map_err(|e| tantivy(dir, e))?;
                     report.added += 1;
                     None
                 }
@@ -240,7 +297,16 @@ impl NoteIndex {
         progress.finish_and_clear();
         report.broken = broken_of(&folder, &manifest);
         let reader = manual_reader(&index).map_err(|e| tantivy(dir, e))?;
-        Ok((NoteIndex { dir: Some(dir.to_path_buf()), folder, index, reader, schema }, report))
+        Ok((
+            NoteIndex {
+                dir: Some(dir.to_path_buf()),
+                folder,
+                index,
+                reader,
+                schema,
+            },
+            report,
+        ))
     }
 }
 
@@ -278,21 +344,32 @@ fn try_open(dir: &Path) -> Result<(OpenedIndex, Manifest), String> {
     }
     register_index_analyzers(&index);
     // Catches files damaged in place, which opening and searching do not notice.
-    let damaged = index.validate_checksum().map_err(|e| format!("it could not be checked ({e})"))?;
+    let damaged = index
+        .validate_checksum()
+        .map_err(|e| format!("it could not be checked ({e})"))?;
     if !damaged.is_empty() {
         return Err(format!("{} of its files were damaged", damaged.len()));
     }
     let reader = manual_reader(&index).map_err(|e| format!("it could not be read ({e})"))?;
-    let indexed = manifest.entries.values().filter(|e| e.broken.is_none()).count() as u64;
+    let indexed = manifest
+        .entries
+        .values()
+        .filter(|e| e.broken.is_none())
+        .count() as u64;
     let found = reader.searcher().num_docs();
     if found != indexed {
-        return Err(format!("it held {found} notes where its manifest lists {indexed}"));
+        return Err(format!(
+            "it held {found} notes where its manifest lists {indexed}"
+        ));
     }
     Ok((OpenedIndex { index, reader }, manifest))
 }
 
 fn manual_reader(index: &Index) -> tantivy::Result<IndexReader> {
-    index.reader_builder().reload_policy(ReloadPolicy::Manual).try_into()
+    index
+        .reader_builder()
+        .reload_policy(ReloadPolicy::Manual)
+        .try_into()
 }
 
 /// Files added or changed since the manifest, and names no longer there.
@@ -311,10 +388,20 @@ impl Changes<'_> {
 fn changes<'f>(manifest: &Manifest, files: &'f [NoteFile]) -> Changes<'f> {
     let changed = files
         .iter()
-        .filter(|f| manifest.entries.get(&f.name).is_none_or(|e| e.size != f.size || e.mtime_ns != f.mtime_ns))
+        .filter(|f| {
+            manifest
+                .entries
+                .get(&f.name)
+                .is_none_or(|e| e.size != f.size || e.mtime_ns != f.mtime_ns)
+        })
         .collect();
     let present: std::collections::HashSet<&str> = files.iter().map(|f| f.name.as_str()).collect();
-    let removed = manifest.entries.keys().filter(|name| !present.contains(name.as_str())).cloned().collect();
+    let removed = manifest
+        .entries
+        .keys()
+        .filter(|name| !present.contains(name.as_str()))
+        .cloned()
+        .collect();
     Changes { changed, removed }
 }
 
@@ -324,7 +411,12 @@ fn name_to_id(name: &str) -> String {
 
 /// The broken notes of a manifest, with the folder in front of each message.
 fn broken_of(folder: &NotesFolder, manifest: &Manifest) -> Vec<String> {
-    manifest.entries.values().filter_map(|e| e.broken.as_deref()).map(|message| qualify(folder, message)).collect()
+    manifest
+        .entries
+        .values()
+        .filter_map(|e| e.broken.as_deref())
+        .map(|message| qualify(folder, message))
+        .collect()
 }
 
 fn qualify(folder: &NotesFolder, message: &str) -> String {
@@ -342,7 +434,12 @@ fn tantivy(path: &Path, source: TantivyError) -> IndexError {
 /// The OS releases it when the holder exits, even if it was killed.
 fn lock(dir: &Path) -> IndexResult<File> {
     let path = dir.join(LOCK_FILE);
-    let file = OpenOptions::new().create(true).truncate(false).write(true).open(&path).map_err(|e| IndexError::io(&path, e))?;
+    let file = OpenOptions::new()
+        .create(true)
+        .truncate(false)
+        .write(true)
+        .open(&path)
+        .map_err(|e| IndexError::io(&path, e))?;
     FileExt::lock_exclusive(&file).map_err(|e| IndexError::io(&path, e))?;
     Ok(file)
 }
@@ -350,12 +447,21 @@ fn lock(dir: &Path) -> IndexResult<File> {
 /// True for the files tantivy writes: its metadata and locks, and segment
 /// files named by a 32-digit hex id.
 fn is_index_file(name: &str) -> bool {
-    let segment = name.len() > 33 && name.as_bytes()[..32].iter().all(u8::is_ascii_hexdigit) && name.as_bytes()[32] == b'.';
-    segment || matches!(name, "meta.json" | ".managed.json" | ".tantivy-meta.lock" | ".tantivy-writer.lock")
+    let segment = name.len() > 33
+        && name.as_bytes()[..32].iter().all(u8::is_ascii_hexdigit)
+        && name.as_bytes()[32] == b'.';
+    segment
+        || matches!(
+            name,
+            "meta.json" | ".managed.json" | ".tantivy-meta.lock" | ".tantivy-writer.lock"
+        )
 }
 
 fn is_own_file(name: &str) -> bool {
-    is_index_file(name) || name == MANIFEST_FILE || name == LOCK_FILE || name.starts_with(".spoolsleuth-manifest-")
+    is_index_file(name)
+        || name == MANIFEST_FILE
+        || name == LOCK_FILE
+        || name.starts_with(".spoolsleuth-manifest-")
 }
 
 fn remove_index_files(dir: &Path) -> IndexResult<()> {
@@ -374,7 +480,11 @@ fn remove_index_files(dir: &Path) -> IndexResult<()> {
 fn refuse_foreign_folder(dir: &Path) -> IndexResult<()> {
     let mut foreign = None;
     for entry in fs::read_dir(dir).map_err(|e| IndexError::io(dir, e))? {
-        let name = entry.map_err(|e| IndexError::io(dir, e))?.file_name().to_string_lossy().into_owned();
+        let name = entry
+            .map_err(|e| IndexError::io(dir, e))?
+            .file_name()
+            .to_string_lossy()
+            .into_owned();
         if name == MANIFEST_FILE || name == "meta.json" || name == LOCK_FILE {
             return Ok(());
         }
@@ -397,7 +507,9 @@ fn progress_bar(len: usize) -> ProgressBar {
     }
     // Draws on stderr, and hides itself when stderr is not a terminal.
     let bar = ProgressBar::new(len as u64).with_message("indexing notes");
-    if let Ok(style) = ProgressStyle::with_template("{msg} {wide_bar} {pos}/{len} ({per_sec}, {eta} left)") {
+    if let Ok(style) =
+        ProgressStyle::with_template("{msg} {wide_bar} {pos}/{len} ({per_sec}, {eta} left)")
+    {
         bar.set_style(style);
     }
     bar
@@ -421,7 +533,9 @@ mod tests {
         let dir = tempfile::tempdir().unwrap();
         fs::write(dir.path().join("thesis.docx"), "x").unwrap();
         let err = refuse_foreign_folder(dir.path()).unwrap_err();
-        assert!(matches!(err, IndexError::ForeignFolder { ref example, .. } if example == "thesis.docx"));
+        assert!(
+            matches!(err, IndexError::ForeignFolder { ref example, .. } if example == "thesis.docx")
+        );
         assert!(refuse_foreign_folder(tempfile::tempdir().unwrap().path()).is_ok());
     }
 }

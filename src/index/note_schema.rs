@@ -2,7 +2,8 @@
 //! document.
 
 use tantivy::schema::{
-    Field, IndexRecordOption, NumericOptions, Schema, TextFieldIndexing, TextOptions, STORED, STRING,
+    Field, IndexRecordOption, NumericOptions, Schema, TextFieldIndexing, TextOptions, STORED,
+    STRING,
 };
 use tantivy::TantivyDocument;
 
@@ -65,7 +66,13 @@ impl NoteSchema {
                 .set_index_option(IndexRecordOption::WithFreqs),
         );
         let id = builder.add_text_field("id", STRING | STORED);
-        let date = builder.add_u64_field("date", NumericOptions::default().set_indexed().set_fast().set_stored());
+        let date = builder.add_u64_field(
+            "date",
+            NumericOptions::default()
+                .set_indexed()
+                .set_fast()
+                .set_stored(),
+        );
         let machine = builder.add_text_field("machine", STRING | STORED);
         let symptom = builder.add_text_field("symptom", STRING | STORED);
         let cause = builder.add_text_field("cause", STRING | STORED);

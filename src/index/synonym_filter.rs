@@ -26,8 +26,24 @@ const GROUPS: &[Group] = &[
         pairs: &[],
         query_phrases: &["goes up and down"],
         words: &[
-            "bounce", "bounced", "bounces", "bouncing", "cycling", "hunt", "hunted", "hunting", "hunts", "oscillate",
-            "oscillated", "oscillates", "oscillating", "oscillation", "oscillations", "surge", "surged", "surges",
+            "bounce",
+            "bounced",
+            "bounces",
+            "bouncing",
+            "cycling",
+            "hunt",
+            "hunted",
+            "hunting",
+            "hunts",
+            "oscillate",
+            "oscillated",
+            "oscillates",
+            "oscillating",
+            "oscillation",
+            "oscillations",
+            "surge",
+            "surged",
+            "surges",
             "surging",
         ],
     },
@@ -44,31 +60,63 @@ const GROUPS: &[Group] = &[
             ("lost", "speed"),
         ],
         query_phrases: &[
-            "drop off", "dropped off", "dropping off", "drops off", "lose speed", "loses speed", "losing speed",
+            "drop off",
+            "dropped off",
+            "dropping off",
+            "drops off",
+            "lose speed",
+            "loses speed",
+            "losing speed",
             "lost speed",
         ],
-        words: &["bog", "bogged", "bogging", "bogs", "sag", "sagged", "sagging", "sags", "slowdown", "slowed", "slowing", "slows"],
+        words: &[
+            "bog", "bogged", "bogging", "bogs", "sag", "sagged", "sagging", "sags", "slowdown",
+            "slowed", "slowing", "slows",
+        ],
     },
     Group {
         emit: &["overheating", "hot"],
-        pairs: &[("hot", "oil"), ("ran", "hot"), ("run", "hot"), ("running", "hot"), ("runs", "hot"), ("too", "hot")],
-        query_phrases: &["hot oil", "ran hot", "run hot", "running hot", "runs hot", "too hot"],
+        pairs: &[
+            ("hot", "oil"),
+            ("ran", "hot"),
+            ("run", "hot"),
+            ("running", "hot"),
+            ("runs", "hot"),
+            ("too", "hot"),
+        ],
+        query_phrases: &[
+            "hot oil",
+            "ran hot",
+            "run hot",
+            "running hot",
+            "runs hot",
+            "too hot",
+        ],
         words: &["overheat", "overheated", "overheating", "overheats"],
     },
     Group {
         emit: &["lunge", "jumps"],
         pairs: &[],
         query_phrases: &[
-            "jumps at start", "jumps at startup", "jumps forward", "surges at start", "surges at startup",
-            "surging at start", "surging at startup",
+            "jumps at start",
+            "jumps at startup",
+            "jumps forward",
+            "surges at start",
+            "surges at startup",
+            "surging at start",
+            "surging at startup",
         ],
-        words: &["jump", "jumped", "jumping", "jumps", "lunge", "lunged", "lunges", "lunging"],
+        words: &[
+            "jump", "jumped", "jumping", "jumps", "lunge", "lunged", "lunges", "lunging",
+        ],
     },
     Group {
         emit: &["drift", "creep"],
         pairs: &[],
         query_phrases: &[],
-        words: &["creep", "creeping", "creeps", "crept", "drift", "drifted", "drifting", "drifts"],
+        words: &[
+            "creep", "creeping", "creeps", "crept", "drift", "drifted", "drifting", "drifts",
+        ],
     },
     Group {
         emit: &["runaway", "overrunning"],
@@ -93,6 +141,18 @@ static LOOKUP: LazyLock<Lookup> = LazyLock::new(|| {
     }
     Lookup { pairs, words }
 });
+
+/// True for a word the synonym lists know (a member or part of a phrase):
+/// such words are never "corrected" as typos.
+pub fn is_trade_word(word: &str) -> bool {
+    let lookup = &*LOOKUP;
+    lookup.words.contains_key(word)
+        || lookup.pairs.keys().any(|(a, b)| *a == word || *b == word)
+        || GROUPS
+            .iter()
+            .flat_map(|g| g.query_phrases)
+            .any(|p| p.split(' ').any(|w| w == word))
+}
 
 /// Rewrite the trade's multi-word phrases in a query (outside quotes) to one
 /// word of their group, e.g. `platen drops off` → `platen sags`.
@@ -196,8 +256,12 @@ impl<S: TokenStream> SynonymTokenStream<S> {
         self.pending_from = token.offset_from;
         if let Some(&group) = lookup.words.get(token.text.as_str()) {
             let own = token.text.as_str();
-            self.pending.extend(GROUPS[group].emit.iter().filter(|w| **w != own));
-        } else if let Some(&group) = lookup.pairs.get(&(self.previous.as_str(), token.text.as_str())) {
+            self.pending
+                .extend(GROUPS[group].emit.iter().filter(|w| **w != own));
+        } else if let Some(&group) = lookup
+            .pairs
+            .get(&(self.previous.as_str(), token.text.as_str()))
+        {
             self.pending.extend(GROUPS[group].emit);
             self.pending_from = self.previous_from;
         }
@@ -240,7 +304,10 @@ mod tests {
     use super::*;
 
     fn tokens(text: &str) -> Vec<(String, usize, usize)> {
-        let mut analyzer = TextAnalyzer::builder(SimpleTokenizer::default()).filter(LowerCaser).filter(SynonymFilter).build();
+        let mut analyzer = TextAnalyzer::builder(SimpleTokenizer::default())
+            .filter(LowerCaser)
+            .filter(SynonymFilter)
+            .build();
         let mut stream = analyzer.token_stream(text);
         let mut out = Vec::new();
         stream.process(&mut |t| out.push((t.text.clone(), t.position, t.offset_from)));
@@ -250,8 +317,22 @@ mod tests {
     #[test]
     fn emits_group_words_at_the_same_position() {
         let out = tokens("It Hunts badly");
-        let at_one: Vec<&str> = out.iter().filter(|t| t.1 == 1).map(|t| t.0.as_str()).collect();
-        assert_eq!(at_one, ["hunts", "bouncing", "cycling", "surging", "oscillating", "hunting"]);
+        let at_one: Vec<&str> = out
+            .iter()
+            .filter(|t| t.1 == 1)
+            .map(|t| t.0.as_str())
+            .collect();
+        assert_eq!(
+            at_one,
+            [
+                "hunts",
+                "bouncing",
+                "cycling",
+                "surging",
+                "oscillating",
+                "hunting"
+            ]
+        );
         assert_eq!(out.last().unwrap().0, "badly");
         assert!(out.iter().filter(|t| t.1 == 1).all(|t| t.2 == 3));
     }
@@ -259,17 +340,33 @@ mod tests {
     #[test]
     fn two_word_phrases_trigger_on_their_second_word() {
         let out = tokens("speed drops off under load");
-        let synonyms: Vec<(&str, usize)> = out.iter().filter(|t| t.1 == 2).map(|t| (t.0.as_str(), t.2)).collect();
-        assert_eq!(synonyms, [("off", 12), ("slows", 6), ("bogs", 6), ("sags", 6)]);
+        let synonyms: Vec<(&str, usize)> = out
+            .iter()
+            .filter(|t| t.1 == 2)
+            .map(|t| (t.0.as_str(), t.2))
+            .collect();
+        assert_eq!(
+            synonyms,
+            [("off", 12), ("slows", 6), ("bogs", 6), ("sags", 6)]
+        );
         assert_eq!(tokens("the pump runs quietly").len(), 4);
     }
 
     #[test]
     fn rewrites_query_phrases_outside_quotes() {
-        assert_eq!(rewrite_phrases("platen Drops  Off at load"), "platen sags at load");
-        assert_eq!(rewrite_phrases("\"runs hot\" runs hot"), "\"runs hot\" overheating");
+        assert_eq!(
+            rewrite_phrases("platen Drops  Off at load"),
+            "platen sags at load"
+        );
+        assert_eq!(
+            rewrite_phrases("\"runs hot\" runs hot"),
+            "\"runs hot\" overheating"
+        );
         assert_eq!(rewrite_phrases("reruns hot"), "reruns hot");
-        assert_eq!(rewrite_phrases("cylinder surges at startup!"), "cylinder lunge!");
+        assert_eq!(
+            rewrite_phrases("cylinder surges at startup!"),
+            "cylinder lunge!"
+        );
         assert_eq!(rewrite_phrases("drops offset"), "drops offset");
     }
 }

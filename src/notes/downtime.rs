@@ -44,12 +44,16 @@ impl FromStr for Downtime {
             return Err("downtime is empty (write e.g. '3.5 h' or '45 min')".into());
         }
         while !rest.is_empty() {
-            let number_end = rest.find(|c: char| !(c.is_ascii_digit() || c == '.')).unwrap_or(rest.len());
-            let number: f64 = rest[..number_end]
-                .parse()
-                .map_err(|_| format!("'{text}' is not a duration (write e.g. '3.5 h' or '45 min')"))?;
+            let number_end = rest
+                .find(|c: char| !(c.is_ascii_digit() || c == '.'))
+                .unwrap_or(rest.len());
+            let number: f64 = rest[..number_end].parse().map_err(|_| {
+                format!("'{text}' is not a duration (write e.g. '3.5 h' or '45 min')")
+            })?;
             rest = rest[number_end..].trim_start();
-            let unit_end = rest.find(|c: char| !c.is_ascii_alphabetic()).unwrap_or(rest.len());
+            let unit_end = rest
+                .find(|c: char| !c.is_ascii_alphabetic())
+                .unwrap_or(rest.len());
             let unit = &rest[..unit_end];
             let per = unit_minutes(unit).ok_or_else(|| {
                 format!("unknown time unit '{unit}' in '{text}' (use min, h, shift or day)")
@@ -80,7 +84,11 @@ mod tests {
 
     #[track_caller]
     fn case(text: &str, minutes: u64) {
-        assert_eq!(text.parse::<Downtime>().unwrap().minutes(), minutes, "{text}");
+        assert_eq!(
+            text.parse::<Downtime>().unwrap().minutes(),
+            minutes,
+            "{text}"
+        );
     }
 
     #[test]

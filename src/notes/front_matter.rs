@@ -32,7 +32,12 @@ impl<'a> FrontMatter<'a> {
     pub fn split(path: &'a Path, text: &'a str) -> Result<Self, NoteError> {
         let text = text.strip_prefix('\u{feff}').unwrap_or(text);
         let Some(after_open) = strip_delimiter(text) else {
-            return Err(NoteError::new(path, 1, 1, "missing front matter: a note starts with a '---' line"));
+            return Err(NoteError::new(
+                path,
+                1,
+                1,
+                "missing front matter: a note starts with a '---' line",
+            ));
         };
         let mut offset = 0;
         for line in after_open.split_inclusive('\n') {
@@ -46,7 +51,12 @@ impl<'a> FrontMatter<'a> {
             }
             offset += line.len();
         }
-        Err(NoteError::new(path, 1, 1, "front matter is not closed: add a '---' line after the fields"))
+        Err(NoteError::new(
+            path,
+            1,
+            1,
+            "front matter is not closed: add a '---' line after the fields",
+        ))
     }
 
     /// Parse and validate the fields into a note with this id.
@@ -57,7 +67,10 @@ impl<'a> FrontMatter<'a> {
             Value::Null => return Err(self.error_at_line(0, 0, "front matter is empty: it needs at least date, machine, title, symptoms, cause and fix")),
             _ => return Err(self.error_at_line(0, 1, "front matter must be a list of 'field: value' lines")),
         };
-        let mut fields = Fields { front: &self, mapping: &mapping };
+        let mut fields = Fields {
+            front: &self,
+            mapping: &mapping,
+        };
         fields.check_names()?;
         Ok(Note {
             cause: fields.id_in("cause", CAUSE_IDS)?,
@@ -78,15 +91,28 @@ impl<'a> FrontMatter<'a> {
     fn yaml_error(&self, error: &serde_yaml::Error) -> NoteError {
         let message = error.to_string();
         // serde_yaml appends " at line L column C"; the place goes in front instead.
-        let message = message.split(" at line ").next().unwrap_or(&message).to_string();
+        let message = message
+            .split(" at line ")
+            .next()
+            .unwrap_or(&message)
+            .to_string();
         match error.location() {
-            Some(location) => self.error_at_line(location.line().saturating_sub(1), location.column(), message),
+            Some(location) => self.error_at_line(
+                location.line().saturating_sub(1),
+                location.column(),
+                message,
+            ),
             None => self.error_at_line(0, 0, message),
         }
     }
 
     /// An error at a 0-based line of the YAML text.
-    fn error_at_line(&self, yaml_line: usize, column: usize, message: impl Into<String>) -> NoteError {
+    fn error_at_line(
+        &self,
+        yaml_line: usize,
+        column: usize,
+        message: impl Into<String>,
+    ) -> NoteError {
         NoteError::new(self.path, self.first_line + yaml_line, column, message)
     }
 
@@ -125,14 +151,22 @@ impl Fields<'_, '_> {
     fn check_names(&mut self) -> Result<(), NoteError> {
         for key in self.mapping.keys() {
             let Some(name) = key.as_str() else {
-                return Err(self.front.error_at_line(0, 1, "field names must be words such as 'machine'"));
+                return Err(self.front.error_at_line(
+                    0,
+                    1,
+                    "field names must be words such as 'machine'",
+                ));
             };
             if !FIELDS.contains(&name) {
                 let (line, _) = self.front.locate(name);
                 let hint = nearest(name, FIELDS.iter().copied())
                     .map(|s| format!(" (did you mean '{s}'?)"))
                     .unwrap_or_else(|| format!(" (known fields: {})", FIELDS.join(", ")));
-                return Err(self.front.error_at_line(line, 1, format!("unknown field '{name}'{hint}")));
+                return Err(self.front.error_at_line(
+                    line,
+                    1,
+                    format!("unknown field '{name}'{hint}"),
+                ));
             }
         }
         Ok(())
@@ -148,7 +182,8 @@ impl Fields<'_, '_> {
             if column == 0 {
                 NoteError::new(self.front.path, 1, 0, format!("missing field '{key}'"))
             } else {
-                self.front.error_at_line(line, column, format!("field '{key}' is empty"))
+                self.front
+                    .error_at_line(line, column, format!("field '{key}' is empty"))
             }
         })
     }
@@ -158,14 +193,18 @@ impl Fields<'_, '_> {
             Value::String(s) => Ok(s.trim().to_string()),
             Value::Number(n) => Ok(n.to_string()),
             Value::Bool(b) => Ok(b.to_string()),
-            _ => Err(self.front.field_error(key, format!("field '{key}' must be text"))),
+            _ => Err(self
+                .front
+                .field_error(key, format!("field '{key}' must be text"))),
         }
     }
 
     fn text(&self, key: &str) -> Result<String, NoteError> {
         let text = self.scalar_text(key, self.required(key)?)?;
         if text.is_empty() {
-            return Err(self.front.field_error(key, format!("field '{key}' is empty")));
+            return Err(self
+                .front
+                .field_error(key, format!("field '{key}' is empty")));
         }
         Ok(text)
     }
@@ -178,27 +217,45 @@ impl Fields<'_, '_> {
     }
 
     fn parsed<T: std::str::FromStr<Err = String>>(&self, key: &str) -> Result<T, NoteError> {
-        self.text(key)?.parse().map_err(|reason: String| self.front.field_error(key, format!("field '{key}': {reason}")))
+        self.text(key)?.parse().map_err(|reason: String| {
+            self.front
+                .field_error(key, format!("field '{key}': {reason}"))
+        })
     }
 
-    fn optional_parsed<T: std::str::FromStr<Err = String>>(&self, key: &str) -> Result<Option<T>, NoteError> {
+    fn optional_parsed<T: std::str::FromStr<Err = String>>(
+        &self,
+        key: &str,
+    ) -> Result<Option<T>, NoteError> {
         match self.get(key) {
             None => Ok(None),
-            Some(Value::Number(n)) => Err(self.front.field_error(key, format!("field '{key}': '{n}' needs a unit, e.g. '{n} h' or '{n} min'"))),
+            Some(Value::Number(n)) => Err(self.front.field_error(
+                key,
+                format!("field '{key}': '{n}' needs a unit, e.g. '{n} h' or '{n} min'"),
+            )),
             Some(_) => self.parsed(key).map(Some),
         }
     }
 
     fn list(&self, key: &str, required: bool) -> Result<Vec<String>, NoteError> {
-        let value = if required { Some(self.required(key)?) } else { self.get(key) };
+        let value = if required {
+            Some(self.required(key)?)
+        } else {
+            self.get(key)
+        };
         let items = match value {
             None => return Ok(Vec::new()),
-            Some(Value::Sequence(items)) => items.iter().map(|item| self.scalar_text(key, item)).collect::<Result<Vec<_>, _>>()?,
+            Some(Value::Sequence(items)) => items
+                .iter()
+                .map(|item| self.scalar_text(key, item))
+                .collect::<Result<Vec<_>, _>>()?,
             Some(other) => vec![self.scalar_text(key, other)?],
         };
         let items: Vec<String> = items.into_iter().filter(|i| !i.is_empty()).collect();
         if required && items.is_empty() {
-            return Err(self.front.field_error(key, format!("field '{key}' needs at least one entry")));
+            return Err(self
+                .front
+                .field_error(key, format!("field '{key}' needs at least one entry")));
         }
         Ok(items)
     }
@@ -212,7 +269,8 @@ impl Fields<'_, '_> {
     fn symptoms(&self) -> Result<Vec<String>, NoteError> {
         let symptoms = self.list("symptoms", true)?;
         for symptom in &symptoms {
-            check_known("symptoms", symptom, SYMPTOM_IDS).map_err(|message| self.front.field_error("symptoms", message))?;
+            check_known("symptoms", symptom, SYMPTOM_IDS)
+                .map_err(|message| self.front.field_error("symptoms", message))?;
         }
         Ok(symptoms)
     }
@@ -231,13 +289,18 @@ impl Fields<'_, '_> {
                 .map(|(name, value)| {
                     let name = self.scalar_text("readings", name)?;
                     let value = self.scalar_text("readings", value)?;
-                    format!("{name}: {value}").parse().map_err(|m: String| self.front.field_error("readings", m))
+                    format!("{name}: {value}")
+                        .parse()
+                        .map_err(|m: String| self.front.field_error("readings", m))
                 })
                 .collect(),
             Some(_) => self
                 .list("readings", false)?
                 .iter()
-                .map(|text| text.parse().map_err(|m: String| self.front.field_error("readings", m)))
+                .map(|text| {
+                    text.parse()
+                        .map_err(|m: String| self.front.field_error("readings", m))
+                })
                 .collect(),
         }
     }
@@ -249,8 +312,15 @@ pub fn check_known(field: &str, id: &str, known: &[&str]) -> Result<(), String> 
         return Ok(());
     }
     Err(match nearest(id, known.iter().copied()) {
-        Some(near) => format!("unknown {} '{id}' in '{field}' (did you mean '{near}'?)", singular(field)),
-        None => format!("unknown {} '{id}' in '{field}' (known: {})", singular(field), known.join(", ")),
+        Some(near) => format!(
+            "unknown {} '{id}' in '{field}' (did you mean '{near}'?)",
+            singular(field)
+        ),
+        None => format!(
+            "unknown {} '{id}' in '{field}' (known: {})",
+            singular(field),
+            known.join(", ")
+        ),
     })
 }
 
@@ -264,7 +334,12 @@ fn singular(field: &str) -> &str {
 /// Checks that a machine id is lowercase words and digits joined by dashes.
 pub fn check_machine(machine: &str) -> Result<(), String> {
     let ok = !machine.is_empty()
-        && machine.split('-').all(|part| !part.is_empty() && part.bytes().all(|b| b.is_ascii_lowercase() || b.is_ascii_digit()));
+        && machine.split('-').all(|part| {
+            !part.is_empty()
+                && part
+                    .bytes()
+                    .all(|b| b.is_ascii_lowercase() || b.is_ascii_digit())
+        });
     if ok {
         Ok(())
     } else {
@@ -301,7 +376,10 @@ mod tests {
     #[test]
     fn names_an_unknown_field_with_a_suggestion() {
         let text = GOOD.replace("machine: press-4", "machnie: press-4");
-        assert_eq!(error(&text), "cases/notes/x.md:3:1: unknown field 'machnie' (did you mean 'machine'?)");
+        assert_eq!(
+            error(&text),
+            "cases/notes/x.md:3:1: unknown field 'machnie' (did you mean 'machine'?)"
+        );
     }
 
     #[test]
@@ -328,19 +406,32 @@ mod tests {
 
     #[test]
     fn reports_missing_fields_and_delimiters() {
-        assert_eq!(error(&GOOD.replace("fix: cleaned the spool\n", "")), "cases/notes/x.md:1: missing field 'fix'");
-        assert_eq!(error("no front matter"), "cases/notes/x.md:1:1: missing front matter: a note starts with a '---' line");
-        assert_eq!(error("---\ndate: 2024-01-01\n"), "cases/notes/x.md:1:1: front matter is not closed: add a '---' line after the fields");
+        assert_eq!(
+            error(&GOOD.replace("fix: cleaned the spool\n", "")),
+            "cases/notes/x.md:1: missing field 'fix'"
+        );
+        assert_eq!(
+            error("no front matter"),
+            "cases/notes/x.md:1:1: missing front matter: a note starts with a '---' line"
+        );
+        assert_eq!(
+            error("---\ndate: 2024-01-01\n"),
+            "cases/notes/x.md:1:1: front matter is not closed: add a '---' line after the fields"
+        );
     }
 
     #[test]
     fn accepts_readings_as_a_list_of_strings() {
-        let text = GOOD.replace("readings:\n  supply: 160 bar\n  load: 152 bar\n", "readings: ['supply: 160 bar']\n");
+        let text = GOOD.replace(
+            "readings:\n  supply: 160 bar\n  load: 152 bar\n",
+            "readings: ['supply: 160 bar']\n",
+        );
         assert_eq!(parse(&text).unwrap().readings[0].value, "160 bar");
     }
 
     #[test]
     fn rejects_badly_formed_machine_ids() {
-        assert!(error(&GOOD.replace("machine: press-4", "machine: Press 4")).contains("must be lowercase"));
+        assert!(error(&GOOD.replace("machine: press-4", "machine: Press 4"))
+            .contains("must be lowercase"));
     }
 }

@@ -77,7 +77,10 @@ struct FrontMatterOut<'a> {
 impl Note {
     /// Parse the text of the file at `path`; the id is the file stem.
     pub fn parse(path: &Path, text: &str) -> Result<Note, NoteError> {
-        let stem = path.file_stem().map(|s| s.to_string_lossy().into_owned()).unwrap_or_default();
+        let stem = path
+            .file_stem()
+            .map(|s| s.to_string_lossy().into_owned())
+            .unwrap_or_default();
         FrontMatter::split(path, text)?.into_note(NoteId::from_stem(&stem))
     }
 
@@ -86,7 +89,12 @@ impl Note {
         let readings = self
             .readings
             .iter()
-            .map(|r| (serde_yaml::Value::from(r.name.as_str()), serde_yaml::Value::from(r.value.as_str())))
+            .map(|r| {
+                (
+                    serde_yaml::Value::from(r.name.as_str()),
+                    serde_yaml::Value::from(r.value.as_str()),
+                )
+            })
             .collect();
         let front = FrontMatterOut {
             cause: &self.cause,

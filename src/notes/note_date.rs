@@ -21,7 +21,9 @@ impl NoteDate {
         }
         let last = days_in_month(year, month);
         if day == 0 || day > last {
-            return Err(format!("day {day} is out of range 1-{last} for {year}-{month:02}"));
+            return Err(format!(
+                "day {day} is out of range 1-{last} for {year}-{month:02}"
+            ));
         }
         Ok(NoteDate { day, month, year })
     }
@@ -83,13 +85,26 @@ impl FromStr for NoteDate {
         let shape_error = || format!("'{text}' is not a date of the form YYYY-MM-DD");
         let bytes = text.as_bytes();
         let digits_at = |range: std::ops::Range<usize>| bytes[range].iter().all(u8::is_ascii_digit);
-        if bytes.len() != 10 || bytes[4] != b'-' || bytes[7] != b'-' || !digits_at(0..4) || !digits_at(5..7) || !digits_at(8..10) {
+        if bytes.len() != 10
+            || bytes[4] != b'-'
+            || bytes[7] != b'-'
+            || !digits_at(0..4)
+            || !digits_at(5..7)
+            || !digits_at(8..10)
+        {
             return Err(shape_error());
         }
         let year = text[0..4].parse().map_err(|_| shape_error())?;
         let month = text[5..7].parse().map_err(|_| shape_error())?;
         let day = text[8..10].parse().map_err(|_| shape_error())?;
-        NoteDate::new(year, month, day).map_err(|reason| format!("'{text}' is not a valid date: {reason}"))
+        NoteDate::new(year, month, day)
+            .map_err(|reason| format!("'{text}' is not a valid date: {reason}"))
+    }
+}
+
+impl serde::Serialize for NoteDate {
+    fn serialize<S: serde::Serializer>(&self, serializer: S) -> Result<S::Ok, S::Error> {
+        serializer.collect_str(self)
     }
 }
 
@@ -120,7 +135,10 @@ mod tests {
             "2023-02-29".parse::<NoteDate>().unwrap_err(),
             "'2023-02-29' is not a valid date: day 29 is out of range 1-28 for 2023-02"
         );
-        assert_eq!("2024-1-01".parse::<NoteDate>().unwrap_err(), "'2024-1-01' is not a date of the form YYYY-MM-DD");
+        assert_eq!(
+            "2024-1-01".parse::<NoteDate>().unwrap_err(),
+            "'2024-1-01' is not a date of the form YYYY-MM-DD"
+        );
         assert!("yesterday".parse::<NoteDate>().is_err());
         assert!("２０２４-01-01".parse::<NoteDate>().is_err());
     }
@@ -135,6 +153,9 @@ mod tests {
     #[test]
     fn days_since_epoch_match_known_dates() {
         assert_eq!(NoteDate::from_days_since_epoch(0).to_string(), "1970-01-01");
-        assert_eq!(NoteDate::from_days_since_epoch(19_782).to_string(), "2024-02-29");
+        assert_eq!(
+            NoteDate::from_days_since_epoch(19_782).to_string(),
+            "2024-02-29"
+        );
     }
 }

@@ -62,12 +62,21 @@ impl NoteDraft {
             path: path.to_path_buf(),
             message,
         };
-        let value: Value = serde_json::from_str(text)
-            .map_err(|e| json_error(format!("{}:{}: {}", e.line(), e.column(), strip_position(&e.to_string()))))?;
+        let value: Value = serde_json::from_str(text).map_err(|e| {
+            json_error(format!(
+                "{}:{}: {}",
+                e.line(),
+                e.column(),
+                strip_position(&e.to_string())
+            ))
+        })?;
         let Value::Object(object) = &value else {
             return Err(json_error("a diagnosis must be a JSON object".into()));
         };
-        let text_of = |keys: &[&str]| keys.iter().find_map(|key| object.get(*key).and_then(scalar_text));
+        let text_of = |keys: &[&str]| {
+            keys.iter()
+                .find_map(|key| object.get(*key).and_then(scalar_text))
+        };
         let cause = object
             .get("leading_cause")
             .and_then(|v| v.get("id").and_then(scalar_text).or_else(|| scalar_text(v)))
@@ -93,7 +102,11 @@ impl NoteDraft {
             ($($field:ident),*) => { $( if other.$field.is_some() { self.$field = other.$field; } )* };
         }
         take!(cause, date, downtime, fix, machine, technician, text, title);
-        for (mine, theirs) in [(&mut self.parts, other.parts), (&mut self.readings, other.readings), (&mut self.symptoms, other.symptoms)] {
+        for (mine, theirs) in [
+            (&mut self.parts, other.parts),
+            (&mut self.readings, other.readings),
+            (&mut self.symptoms, other.symptoms),
+        ] {
             if !theirs.is_empty() {
                 *mine = theirs;
             }
@@ -113,7 +126,10 @@ impl NoteDraft {
             message,
         };
         let need = |field: &str, value: Option<String>| {
-            value.map(|v| v.trim().to_string()).filter(|v| !v.is_empty()).ok_or_else(|| bad(field, "is required".into()))
+            value
+                .map(|v| v.trim().to_string())
+                .filter(|v| !v.is_empty())
+                .ok_or_else(|| bad(field, "is required".into()))
         };
         let machine = need("machine", self.machine)?;
         check_machine(&machine).map_err(|m| bad("machine", m))?;
@@ -130,8 +146,15 @@ impl NoteDraft {
             Some(date) => date.parse::<NoteDate>().map_err(|m| bad("date", m))?,
             None => NoteDate::today(),
         };
-        let downtime = self.downtime.map(|d| d.parse::<Downtime>().map_err(|m| bad("downtime", m))).transpose()?;
-        let readings = self.readings.iter().map(|r| r.parse::<Reading>().map_err(|m| bad("readings", m))).collect::<Result<_, _>>()?;
+        let downtime = self
+            .downtime
+            .map(|d| d.parse::<Downtime>().map_err(|m| bad("downtime", m)))
+            .transpose()?;
+        let readings = self
+            .readings
+            .iter()
+            .map(|r| r.parse::<Reading>().map_err(|m| bad("readings", m)))
+            .collect::<Result<_, _>>()?;
         Ok(Note {
             cause,
             date,
@@ -151,9 +174,25 @@ impl NoteDraft {
     /// A Markdown template for an editor, with what is known filled in.
     pub fn template(&self) -> String {
         let field = |value: &Option<String>| value.as_deref().map(yaml_scalar).unwrap_or_default();
-        let list = |items: &[String]| format!("[{}]", items.iter().map(|i| yaml_scalar(i)).collect::<Vec<_>>().join(", "));
-        let readings: String = self.readings.iter().map(|r| format!("  - {}\n", yaml_scalar(r))).collect();
-        let date = self.date.clone().unwrap_or_else(|| NoteDate::today().to_string());
+        let list = |items: &[String]| {
+            format!(
+                "[{}]",
+                items
+                    .iter()
+                    .map(|i| yaml_scalar(i))
+                    .collect::<Vec<_>>()
+                    .join(", ")
+            )
+        };
+        let readings: String = self
+            .readings
+            .iter()
+            .map(|r| format!("  - {}\n", yaml_scalar(r)))
+            .collect();
+        let date = self
+            .date
+            .clone()
+            .unwrap_or_else(|| NoteDate::today().to_string());
         format!(
             "---\n\
              # New case note: fill in the fields, save and close the editor.\n\
@@ -181,17 +220,26 @@ impl NoteDraft {
             parts = list(&self.parts),
             downtime = field(&self.downtime),
             tech = field(&self.technician),
-            text = self.text.as_deref().unwrap_or("What happened, what you measured, what you tried."),
+            text = self
+                .text
+                .as_deref()
+                .unwrap_or("What happened, what you measured, what you tried."),
         )
     }
 }
 
 fn yaml_scalar(text: &str) -> String {
-    serde_yaml::to_string(text).map(|s| s.trim_end().to_string()).unwrap_or_default()
+    serde_yaml::to_string(text)
+        .map(|s| s.trim_end().to_string())
+        .unwrap_or_default()
 }
 
 fn strip_position(message: &str) -> String {
-    message.split(" at line ").next().unwrap_or(message).to_string()
+    message
+        .split(" at line ")
+        .next()
+        .unwrap_or(message)
+        .to_string()
 }
 
 fn scalar_text(value: &Value) -> Option<String> {
@@ -216,14 +264,21 @@ fn list_of(value: &Value) -> Vec<String> {
 /// `[{"name": "supply", "value": 1450, "unit": "psi"}]`.
 fn readings_of(value: &Value) -> Vec<String> {
     match value {
-        Value::Object(map) => map.iter().filter_map(|(name, v)| Some(format!("{name}: {}", scalar_text(v)?))).collect(),
+        Value::Object(map) => map
+            .iter()
+            .filter_map(|(name, v)| Some(format!("{name}: {}", scalar_text(v)?)))
+            .collect(),
         Value::Array(items) => items
             .iter()
             .filter_map(|item| {
                 scalar_text(item).or_else(|| {
                     let name = item.get("name").and_then(scalar_text)?;
                     let value = item.get("value").and_then(scalar_text)?;
-                    let unit = item.get("unit").and_then(scalar_text).map(|u| format!(" {u}")).unwrap_or_default();
+                    let unit = item
+                        .get("unit")
+                        .and_then(scalar_text)
+                        .map(|u| format!(" {u}"))
+                        .unwrap_or_default();
                     Some(format!("{name}: {value}{unit}"))
                 })
             })
@@ -246,7 +301,9 @@ mod tests {
     #[test]
     fn reads_a_diagnosis_and_ignores_extra_fields() {
         let draft = NoteDraft::from_json(Path::new("d.json"), DIAGNOSIS).unwrap();
-        let note = draft.into_note(DraftOrigin::Json(Path::new("d.json"))).unwrap();
+        let note = draft
+            .into_note(DraftOrigin::Json(Path::new("d.json")))
+            .unwrap();
         assert_eq!(note.id.as_str(), "2026-12-01-press-4-platen-close");
         assert_eq!(note.cause, "compensator-sticking");
         assert_eq!(note.readings[0].to_string(), "supply: 160 bar");
@@ -256,8 +313,14 @@ mod tests {
     fn json_errors_name_file_line_and_field() {
         let err = NoteDraft::from_json(Path::new("d.json"), "{\n  \"machine\": }").unwrap_err();
         assert_eq!(err.to_string(), "d.json: 2:14: expected value");
-        let draft = NoteDraft::from_json(Path::new("d.json"), &DIAGNOSIS.replace("compensator-sticking", "compensator-stuck")).unwrap();
-        let err = draft.into_note(DraftOrigin::Json(Path::new("d.json"))).unwrap_err();
+        let draft = NoteDraft::from_json(
+            Path::new("d.json"),
+            &DIAGNOSIS.replace("compensator-sticking", "compensator-stuck"),
+        )
+        .unwrap();
+        let err = draft
+            .into_note(DraftOrigin::Json(Path::new("d.json")))
+            .unwrap_err();
         assert_eq!(
             err.to_string(),
             "d.json: field 'cause': unknown cause 'compensator-stuck' in 'cause' (did you mean 'compensator-sticking'?)"
@@ -270,7 +333,13 @@ mod tests {
             machine: Some("press-4".into()),
             ..NoteDraft::default()
         };
-        assert_eq!(draft.into_note(DraftOrigin::Options).unwrap_err().to_string(), "--title: is required");
+        assert_eq!(
+            draft
+                .into_note(DraftOrigin::Options)
+                .unwrap_err()
+                .to_string(),
+            "--title: is required"
+        );
     }
 
     #[test]

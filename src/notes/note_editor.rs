@@ -76,7 +76,10 @@ impl NoteEditor {
         if status.success() {
             Ok(())
         } else {
-            Err(self.failure(format!("it exited with {status}; the draft is kept at {}", path.display())))
+            Err(self.failure(format!(
+                "it exited with {status}; the draft is kept at {}",
+                path.display()
+            )))
         }
     }
 
@@ -92,7 +95,10 @@ fn wants_again(answers: &mut dyn BufRead) -> bool {
     let mut line = String::new();
     match answers.read_line(&mut line) {
         Ok(0) | Err(_) => false,
-        Ok(_) => !matches!(line.trim().to_ascii_lowercase().as_str(), "n" | "no" | "q" | "quit"),
+        Ok(_) => !matches!(
+            line.trim().to_ascii_lowercase().as_str(),
+            "n" | "no" | "q" | "quit"
+        ),
     }
 }
 

@@ -11,7 +11,8 @@ pub struct NoteId(String);
 
 /// Words that say nothing about the case and make poor ids.
 const FILLER: &[&str] = &[
-    "a", "after", "and", "at", "for", "from", "in", "is", "it", "of", "on", "the", "to", "too", "very", "when", "with",
+    "a", "after", "and", "at", "for", "from", "in", "is", "it", "of", "on", "the", "to", "too",
+    "very", "when", "with",
 ];
 
 impl NoteId {
@@ -25,7 +26,11 @@ impl NoteId {
         let words: Vec<String> = title
             .split(|c: char| !c.is_ascii_alphanumeric())
             .map(str::to_ascii_lowercase)
-            .filter(|w| !w.is_empty() && !FILLER.contains(&w.as_str()) && !machine.split('-').any(|m| m == w))
+            .filter(|w| {
+                !w.is_empty()
+                    && !FILLER.contains(&w.as_str())
+                    && !machine.split('-').any(|m| m == w)
+            })
             .take(2)
             .collect();
         let machine = slug(machine);
@@ -54,7 +59,10 @@ impl NoteId {
 
 fn slug(text: &str) -> String {
     let lower = text.to_ascii_lowercase();
-    let parts: Vec<&str> = lower.split(|c: char| !c.is_ascii_alphanumeric()).filter(|p| !p.is_empty()).collect();
+    let parts: Vec<&str> = lower
+        .split(|c: char| !c.is_ascii_alphanumeric())
+        .filter(|p| !p.is_empty())
+        .collect();
     if parts.is_empty() {
         "machine".into()
     } else {
@@ -75,9 +83,18 @@ mod tests {
     #[test]
     fn generates_readable_ids() {
         let date = "2026-12-01".parse().unwrap();
-        assert_eq!(NoteId::generate(date, "press-4", "Sag under load on press 4").as_str(), "2026-12-01-press-4-sag-under");
-        assert_eq!(NoteId::generate(date, "Sorter 9", "").as_str(), "2026-12-01-sorter-9");
-        assert_eq!(NoteId::generate(date, "../..", "x/y").as_str(), "2026-12-01-machine-x-y");
+        assert_eq!(
+            NoteId::generate(date, "press-4", "Sag under load on press 4").as_str(),
+            "2026-12-01-press-4-sag-under"
+        );
+        assert_eq!(
+            NoteId::generate(date, "Sorter 9", "").as_str(),
+            "2026-12-01-sorter-9"
+        );
+        assert_eq!(
+            NoteId::generate(date, "../..", "x/y").as_str(),
+            "2026-12-01-machine-x-y"
+        );
     }
 
     #[test]

@@ -19,7 +19,12 @@ pub struct NoteError {
 
 impl NoteError {
     /// A problem at `line:column` of `path`.
-    pub fn new(path: impl Into<PathBuf>, line: usize, column: usize, message: impl Into<String>) -> Self {
+    pub fn new(
+        path: impl Into<PathBuf>,
+        line: usize,
+        column: usize,
+        message: impl Into<String>,
+    ) -> Self {
         NoteError {
             column,
             line,

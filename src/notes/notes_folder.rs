@@ -84,12 +84,20 @@ impl NotesFolder {
                 .iter()
                 .find(|(n, _)| *n == name)
                 .map(|(_, text)| (*text).to_string())
-                .ok_or_else(|| NotesError::io(self.path_of(name), std::io::ErrorKind::NotFound.into())),
+                .ok_or_else(|| {
+                    NotesError::io(self.path_of(name), std::io::ErrorKind::NotFound.into())
+                }),
             NotesFolder::Disk(dir) => {
                 let path = dir.join(name);
                 let bytes = fs::read(&path).map_err(|e| NotesError::io(&path, e))?;
                 String::from_utf8(bytes).map_err(|_| {
-                    NotesError::io(&path, std::io::Error::new(std::io::ErrorKind::InvalidData, "the note is not UTF-8 text"))
+                    NotesError::io(
+                        &path,
+                        std::io::Error::new(
+                            std::io::ErrorKind::InvalidData,
+                            "the note is not UTF-8 text",
+                        ),
+                    )
                 })
             }
         }
@@ -134,8 +142,11 @@ impl NotesFolder {
                 .suffix(".tmp")
                 .tempfile_in(dir)
                 .map_err(|e| NotesError::io(dir, e))?;
-            temp.write_all(note.to_markdown().as_bytes()).map_err(|e| NotesError::io(temp.path(), e))?;
-            temp.as_file().sync_all().map_err(|e| NotesError::io(temp.path(), e))?;
+            temp.write_all(note.to_markdown().as_bytes())
+                .map_err(|e| NotesError::io(temp.path(), e))?;
+            temp.as_file()
+                .sync_all()
+                .map_err(|e| NotesError::io(temp.path(), e))?;
             match temp.persist_noclobber(&target) {
                 Ok(_) => return Ok((id, target)),
                 // Another process took this id between the check and the link: try the next.
@@ -143,7 +154,10 @@ impl NotesFolder {
                 Err(err) => return Err(NotesError::io(&target, err.error)),
             }
         }
-        Err(NotesError::io(dir, std::io::Error::other("no free note id left")))
+        Err(NotesError::io(
+            dir,
+            std::io::Error::other("no free note id left"),
+        ))
     }
 }
 
@@ -207,7 +221,13 @@ mod tests {
         let (first, _) = folder.add(&sample("a")).unwrap();
         let (second, path) = folder.add(&sample("a")).unwrap();
         assert_eq!((first.as_str(), second.as_str()), ("a", "a-2"));
-        assert_eq!(Note::parse(&path, &fs::read_to_string(&path).unwrap()).unwrap().id.as_str(), "a-2");
+        assert_eq!(
+            Note::parse(&path, &fs::read_to_string(&path).unwrap())
+                .unwrap()
+                .id
+                .as_str(),
+            "a-2"
+        );
         let names: Vec<String> = folder.list().unwrap().into_iter().map(|f| f.name).collect();
         assert_eq!(names, ["a-2.md", "a.md"]);
     }
@@ -218,11 +238,17 @@ mod tests {
         let folder = NotesFolder::Disk(dir.path().to_path_buf());
         folder.add(&sample("2024-01-02-press-4-sag")).unwrap();
         let err = folder.find("2024-01-02-press-4-sga").unwrap_err();
-        assert_eq!(err.to_string(), "no note with id '2024-01-02-press-4-sga' (did you mean '2024-01-02-press-4-sag'?)");
+        assert_eq!(
+            err.to_string(),
+            "no note with id '2024-01-02-press-4-sga' (did you mean '2024-01-02-press-4-sag'?)"
+        );
     }
 
     #[test]
     fn embedded_notes_are_read_only() {
-        assert!(matches!(NotesFolder::Embedded.add(&sample("a")), Err(NotesError::EmbeddedReadOnly)));
+        assert!(matches!(
+            NotesFolder::Embedded.add(&sample("a")),
+            Err(NotesError::EmbeddedReadOnly)
+        ));
     }
 }

@@ -19,12 +19,14 @@ impl FromStr for Reading {
     type Err = String;
 
     fn from_str(text: &str) -> Result<Self, String> {
-        let (name, value) = text
-            .split_once(':')
-            .ok_or_else(|| format!("reading '{text}' has no name (write 'name: value', e.g. 'supply: 1450 psi')"))?;
+        let (name, value) = text.split_once(':').ok_or_else(|| {
+            format!("reading '{text}' has no name (write 'name: value', e.g. 'supply: 1450 psi')")
+        })?;
         let (name, value) = (name.trim(), value.trim());
         if name.is_empty() || value.is_empty() {
-            return Err(format!("reading '{text}' needs a name and a value (e.g. 'supply: 1450 psi')"));
+            return Err(format!(
+                "reading '{text}' needs a name and a value (e.g. 'supply: 1450 psi')"
+            ));
         }
         Ok(Reading {
             name: name.to_string(),

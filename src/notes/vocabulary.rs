@@ -70,7 +70,10 @@ mod tests {
     #[test]
     fn nearest_finds_typos_and_rejects_strangers() {
         assert_eq!(nearest("machnie", ["machine", "date"]), Some("machine"));
-        assert_eq!(nearest("compensator-stiking", CAUSE_IDS.iter().copied()), Some("compensator-sticking"));
+        assert_eq!(
+            nearest("compensator-stiking", CAUSE_IDS.iter().copied()),
+            Some("compensator-sticking")
+        );
         assert_eq!(nearest("banana", ["machine", "date"]), None);
     }
 }
