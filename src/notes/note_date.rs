@@ -8,9 +8,10 @@ use std::time::{SystemTime, UNIX_EPOCH};
 /// A valid calendar date (proleptic Gregorian).
 #[derive(Clone, Copy, Debug, PartialEq, Eq, PartialOrd, Ord, Hash)]
 pub struct NoteDate {
-    day: u8,
-    month: u8,
+    // Declared most significant first: the derived order is the calendar order.
     year: u16,
+    month: u8,
+    day: u8,
 }
 
 impl NoteDate {
@@ -146,6 +147,8 @@ mod tests {
     #[test]
     fn ordinal_round_trips_and_sorts() {
         let date: NoteDate = "2021-07-04".parse().unwrap();
+        assert!(date < "2022-01-01".parse().unwrap());
+        assert!(date > "2021-06-30".parse().unwrap());
         assert_eq!(date.ordinal(), 20_210_704);
         assert_eq!(NoteDate::from_ordinal(date.ordinal()), Some(date));
     }
