@@ -95,7 +95,7 @@ mod tests {
 
     #[test]
     fn collapses_whitespace_and_keeps_ranges_on_their_words() {
-        let snippet = SnippetText::new("the  spool\nwas  stuck ", &[5..10, 17..22]);
+        let snippet = SnippetText::new("the  spool\nwas  stuck ", &[5..10, 16..21]);
         assert_eq!(snippet.text, "the spool was stuck");
         assert_eq!(
             snippet.render(HighlightStyle::Markers),
