@@ -1,1 +1,3 @@
 //! Integration tests: each module runs the real binary on data the test owns.
+
+mod cases;
