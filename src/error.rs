@@ -56,6 +56,9 @@ pub enum Error {
         /// What is wrong with it.
         message: String,
     },
+    /// The search index could not be opened or kept current.
+    #[error(transparent)]
+    Index(#[from] crate::index::IndexError),
     /// JSON could not be produced.
     #[error("cannot encode JSON: {0}")]
     Json(#[from] serde_json::Error),
@@ -68,6 +71,12 @@ pub enum Error {
     /// Inputs outside the domain of a formula.
     #[error(transparent)]
     Physics(#[from] PhysicsError),
+    /// A case note or the notes folder is at fault.
+    #[error(transparent)]
+    Notes(#[from] crate::notes::NotesError),
+    /// A search could not be run.
+    #[error(transparent)]
+    Search(#[from] crate::search::SearchError),
     /// A reading or unit that could not be understood.
     #[error(transparent)]
     Units(#[from] UnitError),

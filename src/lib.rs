@@ -10,10 +10,13 @@
 pub mod cli;
 pub mod error;
 pub mod formula;
+pub mod index;
 pub mod machine;
+pub mod notes;
 pub mod output;
 pub mod physics;
 pub mod rules;
+pub mod search;
 pub mod suggest;
 pub mod units;
 

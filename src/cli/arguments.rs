@@ -79,6 +79,8 @@ pub enum UnitsArgument {
 pub enum Command {
     /// Run one fluid-power calculation with readings in any unit.
     Calc(Box<CalcArguments>),
+    /// Past case notes: add, search, show, stats.
+    Cases(Box<super::cases_arguments::CasesArguments>),
     /// Load, lint, list and explain the rule base.
     Rules(RulesArguments),
 }

@@ -6,6 +6,8 @@ mod arguments;
 mod calc_arguments;
 mod calc_command;
 mod calc_report;
+mod cases_arguments;
+mod cases_command;
 mod context;
 mod rules_arguments;
 mod rules_command;
@@ -22,6 +24,7 @@ pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
     let context = Context::from_arguments(&arguments);
     match arguments.command {
         Command::Calc(calc) => calc_command::execute(&context, *calc),
+        Command::Cases(cases) => cases_command::execute(*cases),
         Command::Rules(args) => rules_command::execute(&context, args.action),
     }
 }

@@ -1,0 +1,254 @@
+//! The notes folder: a directory of `*.md` files on disk, or the demo notes
+//! built into the binary. It lists, reads and adds notes; it never changes or
+//! deletes an existing note.
+
+use std::fs;
+use std::io::Write;
+use std::path::{Path, PathBuf};
+use std::time::UNIX_EPOCH;
+
+use super::demo_notes::demo_notes;
+use super::vocabulary::nearest;
+use super::{Note, NoteId, NotesError, NotesResult};
+
+/// Where the notes live.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub enum NotesFolder {
+    /// A folder of `*.md` files.
+    Disk(PathBuf),
+    /// The demo notes built into the binary (read-only).
+    Embedded,
+}
+
+/// One note file as listed: name, size and modification time.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct NoteFile {
+    /// Modification time in nanoseconds since the Unix epoch (0 for embedded notes).
+    pub mtime_ns: u128,
+    /// The file name, e.g. `2024-03-02-press-4-sag.md`.
+    pub name: String,
+    /// Size in bytes.
+    pub size: u64,
+}
+
+impl NoteFile {
+    /// The note id: the file name without `.md`.
+    pub fn id(&self) -> NoteId {
+        NoteId::from_stem(self.name.strip_suffix(".md").unwrap_or(&self.name))
+    }
+}
+
+/// The display folder for the built-in notes.
+const EMBEDDED_PATH: &str = "cases/notes";
+
+impl NotesFolder {
+    /// True for the read-only built-in demo notes.
+    pub fn is_embedded(&self) -> bool {
+        matches!(self, NotesFolder::Embedded)
+    }
+
+    /// The folder as shown to the user.
+    pub fn display_path(&self) -> &Path {
+        match self {
+            NotesFolder::Disk(dir) => dir,
+            NotesFolder::Embedded => Path::new(EMBEDDED_PATH),
+        }
+    }
+
+    /// The path of a note file in this folder, as shown to the user.
+    pub fn path_of(&self, name: &str) -> PathBuf {
+        self.display_path().join(name)
+    }
+
+    /// Every note file (`*.md`, not hidden), sorted by name.
+    pub fn list(&self) -> NotesResult<Vec<NoteFile>> {
+        let mut files = match self {
+            NotesFolder::Embedded => demo_notes()
+                .iter()
+                .map(|(name, text)| NoteFile {
+                    mtime_ns: 0,
+                    name: (*name).to_string(),
+                    size: text.len() as u64,
+                })
+                .collect(),
+            NotesFolder::Disk(dir) => list_dir(dir)?,
+        };
+        files.sort_by(|a, b| a.name.cmp(&b.name));
+        Ok(files)
+    }
+
+    /// The text of a note file.
+    pub fn read(&self, name: &str) -> NotesResult<String> {
+        match self {
+            NotesFolder::Embedded => demo_notes()
+                .iter()
+                .find(|(n, _)| *n == name)
+                .map(|(_, text)| (*text).to_string())
+                .ok_or_else(|| {
+                    NotesError::io(self.path_of(name), std::io::ErrorKind::NotFound.into())
+                }),
+            NotesFolder::Disk(dir) => {
+                let path = dir.join(name);
+                let bytes = fs::read(&path).map_err(|e| NotesError::io(&path, e))?;
+                String::from_utf8(bytes).map_err(|_| {
+                    NotesError::io(
+                        &path,
+                        std::io::Error::new(
+                            std::io::ErrorKind::InvalidData,
+                            "the note is not UTF-8 text",
+                        ),
+                    )
+                })
+            }
+        }
+    }
+
+    /// The note with this id and its path, or the nearest id as a suggestion.
+    pub fn find(&self, id: &str) -> NotesResult<(Note, PathBuf)> {
+        let files = self.list()?;
+        let name = format!("{id}.md");
+        if files.iter().any(|f| f.name == name) {
+            let path = self.path_of(&name);
+            let note = Note::parse(&path, &self.read(&name)?)?;
+            return Ok((note, path));
+        }
+        let ids: Vec<String> = files.iter().map(|f| f.id().to_string()).collect();
+        let suggestion = nearest(id, ids.iter().map(String::as_str))
+            .map(str::to_string)
+            .or_else(|| ids.iter().find(|known| known.contains(id)).cloned());
+        Err(NotesError::NotFound {
+            id: id.to_string(),
+            suggestion,
+        })
+    }
+
+    /// Write a new note under a fresh id (adding `-2`, `-3`... on collision),
+    /// atomically, never replacing a file. Returns the id and path used.
+    pub fn add(&self, note: &Note) -> NotesResult<(NoteId, PathBuf)> {
+        let NotesFolder::Disk(dir) = self else {
+            return Err(NotesError::EmbeddedReadOnly);
+        };
+        fs::create_dir_all(dir).map_err(|e| NotesError::io(dir, e))?;
+        for n in 1..=10_000 {
+            let id = note.id.with_suffix(n);
+            let mut note = note.clone();
+            note.id = id.clone();
+            let target = dir.join(format!("{id}.md"));
+            if target.exists() {
+                continue;
+            }
+            let mut temp = tempfile::Builder::new()
+                .prefix(".spoolsleuth-")
+                .suffix(".tmp")
+                .tempfile_in(dir)
+                .map_err(|e| NotesError::io(dir, e))?;
+            temp.write_all(note.to_markdown().as_bytes())
+                .map_err(|e| NotesError::io(temp.path(), e))?;
+            temp.as_file()
+                .sync_all()
+                .map_err(|e| NotesError::io(temp.path(), e))?;
+            match temp.persist_noclobber(&target) {
+                Ok(_) => return Ok((id, target)),
+                // Another process took this id between the check and the link: try the next.
+                Err(err) if err.error.kind() == std::io::ErrorKind::AlreadyExists => continue,
+                Err(err) => return Err(NotesError::io(&target, err.error)),
+            }
+        }
+        Err(NotesError::io(
+            dir,
+            std::io::Error::other("no free note id left"),
+        ))
+    }
+}
+
+fn list_dir(dir: &Path) -> NotesResult<Vec<NoteFile>> {
+    let entries = fs::read_dir(dir).map_err(|e| NotesError::io(dir, e))?;
+    let mut files = Vec::new();
+    for entry in entries {
+        let entry = entry.map_err(|e| NotesError::io(dir, e))?;
+        let Ok(name) = entry.file_name().into_string() else {
+            continue;
+        };
+        if name.starts_with('.') || !name.ends_with(".md") {
+            continue;
+        }
+        // Follows symlinks, so a linked note counts like a real one.
+        let Ok(metadata) = fs::metadata(entry.path()) else {
+            continue;
+        };
+        if !metadata.is_file() {
+            continue;
+        }
+        let mtime_ns = metadata
+            .modified()
+            .ok()
+            .and_then(|t| t.duration_since(UNIX_EPOCH).ok())
+            .map_or(0, |d| d.as_nanos());
+        files.push(NoteFile {
+            mtime_ns,
+            name,
+            size: metadata.len(),
+        });
+    }
+    Ok(files)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn sample(id: &str) -> Note {
+        Note {
+            cause: "pump-worn".into(),
+            date: "2022-05-06".parse().unwrap(),
+            downtime: None,
+            fix: "new pump".into(),
+            id: NoteId::from_stem(id),
+            machine: "conveyor-7".into(),
+            parts: vec![],
+            readings: vec![],
+            symptoms: vec!["runs-hot".into()],
+            technician: None,
+            text: String::new(),
+            title: "hot".into(),
+        }
+    }
+
+    #[test]
+    fn add_never_overwrites_and_suffixes_ids() {
+        let dir = tempfile::tempdir().unwrap();
+        let folder = NotesFolder::Disk(dir.path().to_path_buf());
+        let (first, _) = folder.add(&sample("a")).unwrap();
+        let (second, path) = folder.add(&sample("a")).unwrap();
+        assert_eq!((first.as_str(), second.as_str()), ("a", "a-2"));
+        assert_eq!(
+            Note::parse(&path, &fs::read_to_string(&path).unwrap())
+                .unwrap()
+                .id
+                .as_str(),
+            "a-2"
+        );
+        let names: Vec<String> = folder.list().unwrap().into_iter().map(|f| f.name).collect();
+        assert_eq!(names, ["a-2.md", "a.md"]);
+    }
+
+    #[test]
+    fn find_suggests_the_nearest_id() {
+        let dir = tempfile::tempdir().unwrap();
+        let folder = NotesFolder::Disk(dir.path().to_path_buf());
+        folder.add(&sample("2024-01-02-press-4-sag")).unwrap();
+        let err = folder.find("2024-01-02-press-4-sga").unwrap_err();
+        assert_eq!(
+            err.to_string(),
+            "no note with id '2024-01-02-press-4-sga' (did you mean '2024-01-02-press-4-sag'?)"
+        );
+    }
+
+    #[test]
+    fn embedded_notes_are_read_only() {
+        assert!(matches!(
+            NotesFolder::Embedded.add(&sample("a")),
+            Err(NotesError::EmbeddedReadOnly)
+        ));
+    }
+}
