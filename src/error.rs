@@ -5,6 +5,9 @@
 
 use std::process::ExitCode;
 
+use crate::machine::MachineError;
+use crate::physics::PhysicsError;
+use crate::rules::RulesError;
 use crate::units::UnitError;
 
 /// How a command that ran to the end went.
@@ -56,6 +59,15 @@ pub enum Error {
     /// JSON could not be produced.
     #[error("cannot encode JSON: {0}")]
     Json(#[from] serde_json::Error),
+    /// A machine profile could not be read or found.
+    #[error(transparent)]
+    Machine(#[from] MachineError),
+    /// The rule base could not be loaded, or an id in it was not found.
+    #[error(transparent)]
+    Rules(#[from] RulesError),
+    /// Inputs outside the domain of a formula.
+    #[error(transparent)]
+    Physics(#[from] PhysicsError),
     /// A reading or unit that could not be understood.
     #[error(transparent)]
     Units(#[from] UnitError),

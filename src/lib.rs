@@ -2,14 +2,18 @@
 //! flow-control circuits.
 //!
 //! The library is layered: [`units`] reads and prints values with their
-//! dimensions, [`physics`] holds the checked fluid-power formulas, and the
+//! dimensions, [`formula`] compiles and evaluates the rule base's unit-aware
+//! checks, [`physics`] holds the checked fluid-power formulas, and the
 //! command-line glue in `cli` turns arguments into calls and reports. See
 //! DEVELOPERS.md for the architecture.
 
 pub mod cli;
 pub mod error;
+pub mod formula;
+pub mod machine;
 pub mod output;
 pub mod physics;
+pub mod rules;
 pub mod suggest;
 pub mod units;
 

@@ -1,1 +1,2 @@
 //! Integration tests: each module runs the real binary on data the test owns.
+mod calc;

@@ -1,16 +1,95 @@
 //! Top-level command-line arguments (clap derive structs only).
 
-use clap::{Parser, Subcommand};
+use std::path::PathBuf;
+
+use clap::{Parser, Subcommand, ValueEnum};
+
+use super::rules_arguments::RulesArguments;
+
+use super::calc_arguments::CalcArguments;
 
 /// Offline troubleshooting for pressure-compensated hydraulic flow controls.
 #[derive(Debug, Parser)]
-#[command(name = "spoolsleuth", version, about)]
+#[command(
+    name = "spoolsleuth",
+    version,
+    about,
+    long_about = "Offline troubleshooting for pressure-compensated hydraulic flow controls.\n\n\
+Exit codes: 0 ran and everything passed (or something was found), 1 ran but a check \
+failed (or nothing was found), 2 error (bad input, bad files, usage).\n\n\
+This tool supports, and does not replace, local codes, the machine maker's \
+instructions and licensed practice."
+)]
 pub struct Arguments {
+    /// When to use colour.
+    #[arg(
+        long,
+        value_enum,
+        default_value = "auto",
+        env = "SPOOLSLEUTH_COLOR",
+        global = true
+    )]
+    pub color: ColorArgument,
+    /// Extra rule folder(s) added to the built-in rule base.
+    #[arg(
+        long = "rules",
+        value_name = "DIR",
+        env = "SPOOLSLEUTH_RULES",
+        global = true,
+        long_help = "A folder of your own rule files (*.yaml), added to the built-in rule \
+base. An entry with the same id as a built-in one replaces it, and the tool says so."
+    )]
+    pub rules: Vec<PathBuf>,
+    /// Unit system for printed results.
+    #[arg(
+        long,
+        value_enum,
+        default_value = "metric",
+        env = "SPOOLSLEUTH_UNITS",
+        global = true
+    )]
+    pub units: UnitsArgument,
     /// What to do.
     #[command(subcommand)]
     pub command: Command,
 }
 
+/// When to use colour.
+#[derive(Clone, Copy, Debug, ValueEnum)]
+pub enum ColorArgument {
+    /// On a terminal, unless NO_COLOR is set or TERM=dumb.
+    Auto,
+    /// Always.
+    Always,
+    /// Never.
+    Never,
+}
+
+/// Unit system for printed results.
+#[derive(Clone, Copy, Debug, ValueEnum)]
+pub enum UnitsArgument {
+    /// bar, L/min, cm³/rev, °C, mm, kW.
+    Metric,
+    /// psi, gpm, in³/rev, °F, in, hp.
+    Us,
+}
+
 /// The subcommands.
 #[derive(Debug, Subcommand)]
-pub enum Command {}
+pub enum Command {
+    /// Run one fluid-power calculation with readings in any unit.
+    Calc(Box<CalcArguments>),
+    /// Load, lint, list and explain the rule base.
+    Rules(RulesArguments),
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use clap::CommandFactory;
+
+    #[test]
+    fn the_command_line_definition_is_consistent() {
+        Arguments::command().debug_assert();
+    }
+}

@@ -1,13 +1,27 @@
 //! The command-line layer: clap argument structs and the glue that turns them
-//! into library calls. Nothing below this folder imports clap.
+//! into library calls and prints the results. Nothing below this folder
+//! imports clap.
 
 mod arguments;
+mod calc_arguments;
+mod calc_command;
+mod calc_report;
+mod context;
+mod rules_arguments;
+mod rules_command;
 
 pub use arguments::Arguments;
+pub use calc_arguments::CalcArguments;
 
 use crate::error::{Error, ExitStatus};
+use arguments::Command;
+use context::Context;
 
 /// Execute parsed arguments.
 pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
-    match arguments.command {}
+    let context = Context::from_arguments(&arguments);
+    match arguments.command {
+        Command::Calc(calc) => calc_command::execute(&context, *calc),
+        Command::Rules(args) => rules_command::execute(&context, args.action),
+    }
 }

@@ -19,6 +19,7 @@ mod unit_system;
 pub use dimension::Dimension;
 pub use format::{format, format_number, value_in};
 pub use kind::Kind;
+pub(crate) use parse::number_len;
 pub use parse::{parse_as, parse_quantity, split_number};
 pub use quantity::Quantity;
 pub use unit::Unit;

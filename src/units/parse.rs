@@ -17,9 +17,8 @@ pub fn split_number(text: &str) -> Result<(f64, &str), UnitError> {
         end = 1;
     }
     let digits_start = end;
-    while end < bytes.len() && (bytes[end].is_ascii_digit() || bytes[end] == b'.') {
-        end += 1;
-    }
+    let (mantissa_len, number_len) = number_len(&trimmed[digits_start..]);
+    end = digits_start + mantissa_len;
     let mantissa = &trimmed[digits_start..end];
     if bytes.get(end) == Some(&b',') && bytes.get(end + 1).is_some_and(u8::is_ascii_digit) {
         return Err(UnitError::Comma {
@@ -40,7 +39,31 @@ pub fn split_number(text: &str) -> Result<(f64, &str), UnitError> {
             text: trimmed.to_string(),
         });
     }
-    // An exponent: e or E, optional sign, digits. "5 e" is not an exponent.
+    end = digits_start + number_len;
+    let number: f64 = trimmed[..end].parse().map_err(|_| UnitError::NotANumber {
+        text: trimmed.to_string(),
+    })?;
+    if !number.is_finite() {
+        return Err(UnitError::NonFinite {
+            text: trimmed.to_string(),
+        });
+    }
+    Ok((number, trimmed[end..].trim()))
+}
+
+/// The unsigned number at the very start of `text`: the length in bytes of
+/// its mantissa (digits and points) and of the whole number (the mantissa
+/// and an exponent such as `e-3`, if one follows). `5 e` has no exponent.
+///
+/// Readings and formulas both scan numbers with this, so that they never
+/// disagree about where a number ends and its unit begins.
+pub(crate) fn number_len(text: &str) -> (usize, usize) {
+    let bytes = text.as_bytes();
+    let mut end = 0;
+    while end < bytes.len() && (bytes[end].is_ascii_digit() || bytes[end] == b'.') {
+        end += 1;
+    }
+    let mantissa = end;
     if matches!(bytes.get(end), Some(b'e' | b'E')) {
         let mut k = end + 1;
         if matches!(bytes.get(k), Some(b'+' | b'-')) {
@@ -53,15 +76,7 @@ pub fn split_number(text: &str) -> Result<(f64, &str), UnitError> {
             end = k;
         }
     }
-    let number: f64 = trimmed[..end].parse().map_err(|_| UnitError::NotANumber {
-        text: trimmed.to_string(),
-    })?;
-    if !number.is_finite() {
-        return Err(UnitError::NonFinite {
-            text: trimmed.to_string(),
-        });
-    }
-    Ok((number, trimmed[end..].trim()))
+    (mantissa, end)
 }
 
 /// Parse a reading of any dimension. A bare number is a plain ratio; a
@@ -328,7 +343,10 @@ mod bad_input {
                 Err(e) => assert_eq!(e.to_string(), *want, "for `{text}`"),
             }
         }
-        println!("{} malformed readings rejected with their messages", CASES.len());
+        println!(
+            "{} malformed readings rejected with their messages",
+            CASES.len()
+        );
     }
 }
 

@@ -1,0 +1,104 @@
+//! A machine profile: the circuit, its nameplate data and the gauges fitted.
+
+use std::collections::BTreeMap;
+
+use serde::{Deserialize, Serialize};
+
+use crate::rules::{Circuit, Placement, RuleBase, Scalar};
+use crate::units::{Quantity, UnitSystem};
+
+/// What drives the load.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Deserialize, Serialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum Actuator {
+    /// A hydraulic cylinder.
+    Cylinder,
+    /// A hydraulic motor.
+    Motor,
+}
+
+/// One machine, as written in its YAML file.
+#[derive(Clone, Debug, Deserialize)]
+#[serde(deny_unknown_fields)]
+pub struct MachineProfile {
+    /// Cylinder or motor.
+    pub actuator: Actuator,
+    /// Circuit type.
+    pub circuit: Circuit,
+    /// Gauge points fitted (quantity ids).
+    #[serde(default)]
+    pub gauges: Vec<String>,
+    /// Lowercase id, e.g. `press-4`.
+    pub id: String,
+    /// What the machine is.
+    pub name: String,
+    /// Nameplate data: quantity id → value with unit.
+    #[serde(default)]
+    pub nameplate: BTreeMap<String, Scalar>,
+    /// Free text.
+    #[serde(default)]
+    pub notes: Option<String>,
+    /// The oil in it.
+    #[serde(default)]
+    pub oil: Option<String>,
+    /// Where the valve sits.
+    pub placement: Placement,
+    /// The plant it belongs to.
+    #[serde(default)]
+    pub plant: Option<String>,
+    /// The pump, in words.
+    #[serde(default)]
+    pub pump: Option<String>,
+    /// How results for this machine are printed.
+    #[serde(default)]
+    pub units: UnitSystem,
+    /// Schema version (1).
+    pub version: u32,
+}
+
+/// A nameplate value that does not fit the vocabulary.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct NameplateProblem {
+    /// The nameplate key.
+    pub name: String,
+    /// What is wrong.
+    pub message: String,
+}
+
+impl MachineProfile {
+    /// The nameplate values parsed with their quantity kinds, and the problems found.
+    pub fn nameplate_values(
+        &self,
+        base: &RuleBase,
+    ) -> (BTreeMap<String, Quantity>, Vec<NameplateProblem>) {
+        let mut values = BTreeMap::new();
+        let mut problems = Vec::new();
+        for (name, text) in &self.nameplate {
+            let mut readings = crate::rules::Readings::new();
+            match readings.insert_text(base, name, &text.0) {
+                Ok(()) => {
+                    if let Some(v) = readings.get(name) {
+                        values.insert(name.clone(), v);
+                    }
+                }
+                Err(e) => problems.push(NameplateProblem {
+                    name: name.clone(),
+                    message: e.message,
+                }),
+            }
+        }
+        for gauge in &self.gauges {
+            if !base.quantities.contains_key(gauge) {
+                problems.push(NameplateProblem {
+                    name: gauge.clone(),
+                    message: crate::rules::unknown(
+                        "quantity",
+                        gauge,
+                        base.quantities.keys().map(String::as_str),
+                    ),
+                });
+            }
+        }
+        (values, problems)
+    }
+}

@@ -1,0 +1,844 @@
+//! The loaded, checked rule base: every file read, every formula compiled
+//! and dimension-checked, every reference resolved.
+
+use std::collections::{BTreeMap, BTreeSet};
+use std::path::{Path, PathBuf};
+
+use regex::{Regex, RegexBuilder};
+
+use super::formulas::{self, Check, Evidence, TypeEnv};
+use super::rule_file::{
+    CauseEntry, CautionEntry, Circuit, DerivedEntry, Placement, PointEntry, QuantityEntry,
+    QuantitySource, RuleEntry, RuleFile, SettingEntry, SymptomEntry,
+};
+use super::source_map::{Position, SourceMap};
+use super::RulesError;
+use crate::units::{self, Kind, Quantity};
+
+/// The default rule base, compiled into the binary.
+static DEFAULT_RULES: include_dir::Dir<'static> =
+    include_dir::include_dir!("$CARGO_MANIFEST_DIR/rules");
+
+/// Where an entry came from, and what it replaced.
+#[derive(Clone, Debug, Default)]
+pub struct Origin {
+    /// The file, e.g. `rules/sag.yaml`.
+    pub file: String,
+    /// The line of its `id:`.
+    pub line: usize,
+    /// The file of the default entry this one replaces, if any.
+    pub replaces: Option<String>,
+}
+
+impl Origin {
+    /// `file:line`.
+    pub fn at(&self) -> String {
+        format!("{}:{}", self.file, self.line)
+    }
+}
+
+/// A quantity of the vocabulary.
+#[derive(Clone, Debug)]
+pub struct QuantityDef {
+    /// As written.
+    pub entry: QuantityEntry,
+    /// Its kind.
+    pub kind: Kind,
+    /// Its plausible range.
+    pub range: Option<(Quantity, Quantity)>,
+    /// Where it came from.
+    pub origin: Origin,
+}
+
+/// A threshold.
+#[derive(Clone, Debug)]
+pub struct SettingDef {
+    /// As written.
+    pub entry: SettingEntry,
+    /// Its kind.
+    pub kind: Kind,
+    /// Its value.
+    pub value: Quantity,
+    /// Where it came from.
+    pub origin: Origin,
+}
+
+/// A named formula.
+#[derive(Clone, Debug)]
+pub struct DerivedDef {
+    /// As written.
+    pub entry: DerivedEntry,
+    /// Its kind.
+    pub kind: Kind,
+    /// The compiled formula.
+    pub formula: Check,
+    /// Where it came from.
+    pub origin: Origin,
+}
+
+/// A symptom with its compiled phrase patterns.
+#[derive(Clone, Debug)]
+pub struct SymptomDef {
+    /// As written.
+    pub entry: SymptomEntry,
+    /// Compiled patterns (case-insensitive).
+    pub patterns: Vec<Regex>,
+    /// Where it came from.
+    pub origin: Origin,
+}
+
+/// A cause.
+#[derive(Clone, Debug)]
+pub struct CauseDef {
+    /// As written.
+    pub entry: CauseEntry,
+    /// Where it came from.
+    pub origin: Origin,
+}
+
+/// A caution.
+#[derive(Clone, Debug)]
+pub struct CautionDef {
+    /// As written.
+    pub entry: CautionEntry,
+    /// Where it came from.
+    pub origin: Origin,
+}
+
+/// A rule with its compiled check and evidence.
+#[derive(Clone, Debug)]
+pub struct RuleDef {
+    /// As written.
+    pub entry: RuleEntry,
+    /// The compiled check (a true/false formula).
+    pub check: Check,
+    /// The compiled evidence sentence.
+    pub evidence: Evidence,
+    /// Where it came from.
+    pub origin: Origin,
+}
+
+impl RuleDef {
+    /// True when the rule applies to this circuit and placement.
+    pub fn applies_to(&self, circuit: Circuit, placement: Placement) -> bool {
+        (self.entry.circuits.is_empty() || self.entry.circuits.contains(&circuit))
+            && (self.entry.placements.is_empty() || self.entry.placements.contains(&placement))
+    }
+}
+
+/// The whole rule base.
+#[derive(Clone, Debug, Default)]
+pub struct RuleBase {
+    /// Safety cautions by id.
+    pub cautions: BTreeMap<String, CautionDef>,
+    /// Causes by id.
+    pub causes: BTreeMap<String, CauseDef>,
+    /// The closing line.
+    pub closing: String,
+    /// Named formulas, in dependency order.
+    pub derived: Vec<DerivedDef>,
+    /// Ids defined more than once within one layer (default or user), with
+    /// both places; reported by `rules check`.
+    pub duplicates: Vec<(String, String, String)>,
+    /// Operating points.
+    pub points: Vec<PointEntry>,
+    /// The vocabulary by id.
+    pub quantities: BTreeMap<String, QuantityDef>,
+    /// Rules, in file order.
+    pub rules: Vec<RuleDef>,
+    /// Settings by id.
+    pub settings: BTreeMap<String, SettingDef>,
+    /// Symptoms, in file order.
+    pub symptoms: Vec<SymptomDef>,
+    /// The files read, for positions in later messages.
+    pub sources: Vec<SourceMap>,
+}
+
+/// One file's parsed content with its source.
+struct Parsed {
+    file: RuleFile,
+    source: SourceMap,
+    user: bool,
+}
+
+impl RuleBase {
+    /// Load the default rule base plus the `*.yaml` files of each folder in
+    /// `user_dirs` (later entries replace earlier ones with the same id).
+    pub fn load(user_dirs: &[PathBuf]) -> Result<RuleBase, RulesError> {
+        let mut sources = default_sources();
+        for dir in user_dirs {
+            sources.extend(read_dir(dir)?.into_iter().map(|s| (s, true)));
+        }
+        Self::from_sources(sources)
+    }
+
+    /// Load only the given sources (`true` marks a user file that may
+    /// replace a default entry).
+    pub fn from_sources(sources: Vec<(SourceMap, bool)>) -> Result<RuleBase, RulesError> {
+        let mut errors = Vec::new();
+        let mut parsed = Vec::new();
+        for (source, user) in sources {
+            match parse_file(&source) {
+                Ok(file) => parsed.push(Parsed { file, source, user }),
+                Err(e) => errors.push(e),
+            }
+        }
+        if let Some(e) = RulesError::gather(errors) {
+            return Err(e);
+        }
+        let mut base = RuleBase::default();
+        base.build(parsed)?;
+        Ok(base)
+    }
+
+    fn build(&mut self, parsed: Vec<Parsed>) -> Result<(), RulesError> {
+        let mut errors = Vec::new();
+        let mut layers = Layers::default();
+        for p in &parsed {
+            layers.collect(p, &mut self.duplicates);
+            if let Some(closing) = &p.file.closing {
+                self.closing = closing.clone();
+            }
+        }
+        self.sources = parsed.iter().map(|p| p.source.clone()).collect();
+        self.points = layers
+            .operating_points
+            .values()
+            .map(|(e, _)| e.clone())
+            .collect();
+        for (id, (entry, origin)) in layers.quantities {
+            match self.quantity(entry, origin.clone()) {
+                Ok(def) => {
+                    self.quantities.insert(id, def);
+                }
+                Err(e) => errors.push(e),
+            }
+        }
+        for (id, (entry, origin)) in layers.settings {
+            match self.setting(entry, origin.clone()) {
+                Ok(def) => {
+                    self.settings.insert(id, def);
+                }
+                Err(e) => errors.push(e),
+            }
+        }
+        for (id, (entry, origin)) in layers.causes {
+            self.causes.insert(id, CauseDef { entry, origin });
+        }
+        for (id, (entry, origin)) in layers.cautions {
+            self.cautions.insert(id, CautionDef { entry, origin });
+        }
+        for (entry, origin) in layers.symptoms.into_values() {
+            match self.symptom(entry, origin) {
+                Ok(def) => self.symptoms.push(def),
+                Err(e) => errors.push(e),
+            }
+        }
+        self.symptoms
+            .sort_by(|a, b| (&a.origin.file, a.origin.line).cmp(&(&b.origin.file, b.origin.line)));
+        self.compile_derived(layers.derived, &mut errors);
+        let mut rules: Vec<(RuleEntry, Origin)> = layers.rules.into_values().collect();
+        rules.sort_by(|a, b| (&a.1.file, a.1.line).cmp(&(&b.1.file, b.1.line)));
+        for (entry, origin) in rules {
+            match self.rule(entry, origin) {
+                Ok(def) => self.rules.push(def),
+                Err(mut e) => errors.append(&mut e),
+            }
+        }
+        match RulesError::gather(errors) {
+            Some(e) => Err(e),
+            None => Ok(()),
+        }
+    }
+
+    /// The source of a file by name.
+    pub fn source(&self, file: &str) -> Option<&SourceMap> {
+        self.sources.iter().find(|s| s.name == file)
+    }
+
+    fn invalid(&self, origin: &Origin, id: &str, key: Option<&str>, message: String) -> RulesError {
+        let position = self.source(&origin.file).and_then(|s| match key {
+            Some(k) => s.key(id, k),
+            None => s.entry(id),
+        });
+        invalid_at(&origin.file, position, message)
+    }
+
+    fn kind(&self, origin: &Origin, id: &str, text: &str) -> Result<Kind, RulesError> {
+        text.parse::<Kind>()
+            .map_err(|message| self.invalid(origin, id, Some("kind"), message))
+    }
+
+    fn quantity(&self, entry: QuantityEntry, origin: Origin) -> Result<QuantityDef, RulesError> {
+        let kind = self.kind(&origin, &entry.id, &entry.kind)?;
+        if !(1..=5).contains(&entry.effort) {
+            return Err(self.invalid(
+                &origin,
+                &entry.id,
+                Some("effort"),
+                format!(
+                    "effort must be from 1 (easy) to 5 (hard), found {}",
+                    entry.effort
+                ),
+            ));
+        }
+        let range = match &entry.range {
+            Some([low, high]) => {
+                let parse = |t: &str| {
+                    units::parse_as(t, kind)
+                        .map_err(|e| self.invalid(&origin, &entry.id, Some("range"), e.to_string()))
+                };
+                Some((parse(low)?, parse(high)?))
+            }
+            None => None,
+        };
+        Ok(QuantityDef {
+            entry,
+            kind,
+            range,
+            origin,
+        })
+    }
+
+    fn setting(&self, entry: SettingEntry, origin: Origin) -> Result<SettingDef, RulesError> {
+        let kind = self.kind(&origin, &entry.id, &entry.kind)?;
+        let value = units::parse_as(&entry.value.0, kind)
+            .map_err(|e| self.invalid(&origin, &entry.id, Some("value"), e.to_string()))?;
+        if entry.source.trim().is_empty() {
+            return Err(self.invalid(
+                &origin,
+                &entry.id,
+                Some("source"),
+                "a setting needs a source: a citation, `common practice` or `from memory`".into(),
+            ));
+        }
+        Ok(SettingDef {
+            entry,
+            kind,
+            value,
+            origin,
+        })
+    }
+
+    fn symptom(&self, entry: SymptomEntry, origin: Origin) -> Result<SymptomDef, RulesError> {
+        let mut patterns = Vec::new();
+        for phrase in &entry.phrases {
+            let regex = RegexBuilder::new(phrase)
+                .case_insensitive(true)
+                .size_limit(1 << 20)
+                .build()
+                .map_err(|e| {
+                    self.invalid(
+                        &origin,
+                        &entry.id,
+                        Some("phrases"),
+                        format!(
+                            "bad phrase pattern `{phrase}`: {}",
+                            first_line(&e.to_string())
+                        ),
+                    )
+                })?;
+            patterns.push(regex);
+        }
+        Ok(SymptomDef {
+            entry,
+            patterns,
+            origin,
+        })
+    }
+
+    /// The compile-time environment: every quantity, setting and derived
+    /// quantity compiled so far, with its kind, and the operating points.
+    pub fn type_env(&self) -> TypeEnv {
+        let mut names: BTreeMap<String, Kind> = BTreeMap::new();
+        for (id, q) in &self.quantities {
+            names.insert(id.clone(), q.kind);
+        }
+        for (id, s) in &self.settings {
+            names.insert(id.clone(), s.kind);
+        }
+        for d in &self.derived {
+            names.insert(d.entry.id.clone(), d.kind);
+        }
+        TypeEnv {
+            names,
+            points: self.points.iter().map(|p| p.id.clone()).collect(),
+        }
+    }
+
+    /// Compile derived quantities in dependency order: repeatedly compile
+    /// those whose names are all known, so a cycle shows up as a set that
+    /// never compiles.
+    fn compile_derived(
+        &mut self,
+        derived: BTreeMap<String, (DerivedEntry, Origin)>,
+        errors: &mut Vec<RulesError>,
+    ) {
+        let mut pending: Vec<(DerivedEntry, Origin)> = derived.into_values().collect();
+        let all_ids: BTreeSet<String> = pending.iter().map(|(e, _)| e.id.clone()).collect();
+        loop {
+            let env = self.type_env();
+            let before = pending.len();
+            let mut waiting = Vec::new();
+            for (entry, origin) in pending {
+                let refs = formulas::referenced_names(&entry.formula);
+                let blocked = refs
+                    .iter()
+                    .any(|n| all_ids.contains(n) && !env.names.contains_key(n) && *n != entry.id);
+                if blocked {
+                    waiting.push((entry, origin));
+                    continue;
+                }
+                match self.derived_def(&env, entry, origin) {
+                    Ok(def) => self.derived.push(def),
+                    Err(e) => errors.push(e),
+                }
+            }
+            pending = waiting;
+            if pending.is_empty() || pending.len() == before {
+                break;
+            }
+        }
+        for (entry, origin) in pending {
+            errors.push(self.invalid(
+                &origin,
+                &entry.id,
+                Some("formula"),
+                format!(
+                    "derived quantity `{}` depends on itself through other derived quantities",
+                    entry.id
+                ),
+            ));
+        }
+    }
+
+    fn derived_def(
+        &self,
+        env: &TypeEnv,
+        entry: DerivedEntry,
+        origin: Origin,
+    ) -> Result<DerivedDef, RulesError> {
+        let kind = self.kind(&origin, &entry.id, &entry.kind)?;
+        let formula = self.compile(env, &origin, &entry.id, "formula", &entry.formula)?;
+        if let Err(message) = formula.expect_kind(kind) {
+            return Err(self.invalid(&origin, &entry.id, Some("formula"), message));
+        }
+        Ok(DerivedDef {
+            entry,
+            kind,
+            formula,
+            origin,
+        })
+    }
+
+    fn compile(
+        &self,
+        env: &TypeEnv,
+        origin: &Origin,
+        id: &str,
+        key: &str,
+        text: &str,
+    ) -> Result<Check, RulesError> {
+        Check::compile(text, env).map_err(|(offset, message)| {
+            self.formula_error(origin, id, key, text, offset, &message)
+        })
+    }
+
+    fn formula_error(
+        &self,
+        origin: &Origin,
+        id: &str,
+        key: &str,
+        text: &str,
+        offset: usize,
+        message: &str,
+    ) -> RulesError {
+        let position = self.source(&origin.file).and_then(|s| {
+            let at = s.key(id, key)?;
+            // Step past the quotes when the scalar on the line is the formula.
+            let column = match s.scalar_at(at) {
+                Some((content, column)) if content.trim() == text.trim() => column,
+                _ => at.column,
+            };
+            Some(Position {
+                line: at.line,
+                column: column + text[..offset.min(text.len())].chars().count(),
+            })
+        });
+        invalid_at(&origin.file, position, message.to_string())
+    }
+
+    fn rule(&self, entry: RuleEntry, origin: Origin) -> Result<RuleDef, Vec<RulesError>> {
+        let env = self.type_env();
+        let mut errors = Vec::new();
+        let id = entry.id.clone();
+        if !self.causes.contains_key(&entry.cause) {
+            let known = self.causes.keys().map(String::as_str);
+            errors.push(self.invalid(
+                &origin,
+                &id,
+                Some("cause"),
+                unknown("cause", &entry.cause, known),
+            ));
+        }
+        for symptom in &entry.symptoms {
+            if !self.symptoms.iter().any(|s| &s.entry.id == symptom) {
+                let known = self.symptoms.iter().map(|s| s.entry.id.as_str());
+                errors.push(self.invalid(
+                    &origin,
+                    &id,
+                    Some("symptoms"),
+                    unknown("symptom", symptom, known),
+                ));
+            }
+        }
+        if !(entry.prior > 0.0 && entry.prior <= 1.0) {
+            errors.push(self.invalid(
+                &origin,
+                &id,
+                Some("prior"),
+                format!("prior must be above 0 and at most 1, found {}", entry.prior),
+            ));
+        }
+        let check = match self.compile(&env, &origin, &id, "check", &entry.check) {
+            Ok(check) if check.is_condition() => Some(check),
+            Ok(_) => {
+                errors.push(self.invalid(
+                    &origin,
+                    &id,
+                    Some("check"),
+                    "a check must be true or false (a comparison), not a quantity".into(),
+                ));
+                None
+            }
+            Err(e) => {
+                errors.push(e);
+                None
+            }
+        };
+        let evidence = match Evidence::compile(&entry.evidence, &env) {
+            Ok(e) => Some(e),
+            Err((offset, message)) => {
+                errors.push(self.formula_error(
+                    &origin,
+                    &id,
+                    "evidence",
+                    &entry.evidence,
+                    offset,
+                    &message,
+                ));
+                None
+            }
+        };
+        match (check, evidence) {
+            (Some(check), Some(evidence)) if errors.is_empty() => Ok(RuleDef {
+                entry,
+                check,
+                evidence,
+                origin,
+            }),
+            _ => Err(errors),
+        }
+    }
+
+    /// A rule by id, or an error with the nearest id.
+    pub fn rule_by_id(&self, id: &str) -> Result<&RuleDef, RulesError> {
+        self.rules
+            .iter()
+            .find(|r| r.entry.id == id)
+            .ok_or_else(|| RulesError::UnknownId {
+                what: "rule",
+                id: id.to_string(),
+                suggestion: crate::suggest::suggest(
+                    id,
+                    self.rules.iter().map(|r| r.entry.id.as_str()),
+                )
+                .map(str::to_string),
+            })
+    }
+
+    /// A symptom by id, or an error with the nearest id.
+    pub fn symptom_by_id(&self, id: &str) -> Result<&SymptomDef, RulesError> {
+        self.symptoms
+            .iter()
+            .find(|s| s.entry.id == id)
+            .ok_or_else(|| RulesError::UnknownId {
+                what: "symptom",
+                id: id.to_string(),
+                suggestion: crate::suggest::suggest(
+                    id,
+                    self.symptoms.iter().map(|s| s.entry.id.as_str()),
+                )
+                .map(str::to_string),
+            })
+    }
+
+    /// The symptoms whose phrases match a complaint, in rule-base order.
+    pub fn recognise(&self, complaint: &str) -> Vec<&SymptomDef> {
+        self.symptoms
+            .iter()
+            .filter(|s| s.patterns.iter().any(|p| p.is_match(complaint)))
+            .collect()
+    }
+
+    /// A quantity by reading name (`name` or `name@point`), checking the point.
+    pub fn quantity_for_reading(&self, name: &str) -> Result<&QuantityDef, String> {
+        let (base, point) = match name.split_once('@') {
+            Some((b, p)) => (b, Some(p)),
+            None => (name, None),
+        };
+        let q = self
+            .quantities
+            .get(base)
+            .ok_or_else(|| unknown("quantity", base, self.quantities.keys().map(String::as_str)))?;
+        if let Some(p) = point {
+            if !self.points.iter().any(|x| x.id == p) {
+                return Err(unknown(
+                    "operating point",
+                    p,
+                    self.points.iter().map(|x| x.id.as_str()),
+                ));
+            }
+        }
+        Ok(q)
+    }
+
+    /// Whether a quantity is nameplate data (it then holds at every
+    /// operating point).
+    pub fn is_nameplate(&self, id: &str) -> bool {
+        self.quantities
+            .get(id)
+            .is_some_and(|q| q.entry.source == QuantitySource::Nameplate)
+    }
+}
+
+/// `unknown <what> `<id>` (did you mean `<near>`?)`.
+pub fn unknown<'a>(what: &str, id: &str, known: impl Iterator<Item = &'a str>) -> String {
+    match crate::suggest::suggest(id, known) {
+        Some(near) => format!("unknown {what} `{id}` (did you mean `{near}`?)"),
+        None => format!("unknown {what} `{id}`"),
+    }
+}
+
+fn invalid_at(file: &str, position: Option<Position>, message: String) -> RulesError {
+    let at = match position {
+        Some(p) => format!("{file}:{}:{}", p.line, p.column),
+        None => file.to_string(),
+    };
+    RulesError::Invalid { at, message }
+}
+
+fn first_line(s: &str) -> String {
+    s.lines().last().unwrap_or(s).trim().to_string()
+}
+
+/// Entries gathered from every file, the later layer replacing the earlier.
+#[derive(Default)]
+struct Layers {
+    cautions: BTreeMap<String, (CautionEntry, Origin)>,
+    causes: BTreeMap<String, (CauseEntry, Origin)>,
+    derived: BTreeMap<String, (DerivedEntry, Origin)>,
+    operating_points: BTreeMap<String, (PointEntry, Origin)>,
+    quantities: BTreeMap<String, (QuantityEntry, Origin)>,
+    rules: BTreeMap<String, (RuleEntry, Origin)>,
+    settings: BTreeMap<String, (SettingEntry, Origin)>,
+    symptoms: BTreeMap<String, (SymptomEntry, Origin)>,
+    user_ids: BTreeSet<(String, &'static str)>,
+}
+
+macro_rules! merge {
+    ($layers:expr, $parsed:expr, $dups:expr, $field:ident, $what:literal) => {
+        for entry in &$parsed.file.$field {
+            let line = $parsed.source.entry(&entry.id).map_or(0, |p| p.line);
+            let mut origin = Origin {
+                file: $parsed.source.name.clone(),
+                line,
+                replaces: None,
+            };
+            if let Some((_, old)) = $layers.$field.get(&entry.id) {
+                let same_layer =
+                    !$parsed.user || $layers.user_ids.contains(&(entry.id.clone(), $what));
+                if same_layer {
+                    $dups.push((
+                        format!("{} `{}`", $what, entry.id),
+                        old.at(),
+                        origin_at(&origin),
+                    ));
+                } else {
+                    origin.replaces = Some(old.at());
+                }
+            }
+            if $parsed.user {
+                $layers.user_ids.insert((entry.id.clone(), $what));
+            }
+            $layers
+                .$field
+                .insert(entry.id.clone(), (entry.clone(), origin));
+        }
+    };
+}
+
+fn origin_at(o: &Origin) -> String {
+    o.at()
+}
+
+impl Layers {
+    fn collect(&mut self, p: &Parsed, duplicates: &mut Vec<(String, String, String)>) {
+        merge!(self, p, duplicates, cautions, "caution");
+        merge!(self, p, duplicates, causes, "cause");
+        merge!(self, p, duplicates, derived, "derived quantity");
+        merge!(self, p, duplicates, operating_points, "operating point");
+        merge!(self, p, duplicates, quantities, "quantity");
+        merge!(self, p, duplicates, rules, "rule");
+        merge!(self, p, duplicates, settings, "setting");
+        merge!(self, p, duplicates, symptoms, "symptom");
+    }
+}
+
+/// Parse one file, reporting YAML errors with their position.
+fn parse_file(source: &SourceMap) -> Result<RuleFile, RulesError> {
+    let file: RuleFile = serde_yaml::from_str(&source.text).map_err(|e| {
+        let position = e.location().map(|l| Position {
+            line: l.line(),
+            column: l.column(),
+        });
+        invalid_at(&source.name, position, yaml_message(&e))
+    })?;
+    if file.version != 1 {
+        return Err(invalid_at(
+            &source.name,
+            None,
+            format!(
+                "unsupported rule-file version {} (this spoolsleuth reads version 1)",
+                file.version
+            ),
+        ));
+    }
+    Ok(file)
+}
+
+/// serde_yaml's message without its trailing " at line X column Y", with a
+/// suggestion for a misspelt key.
+fn yaml_message(e: &serde_yaml::Error) -> String {
+    let text = e.to_string();
+    let text = match text.find(" at line ") {
+        Some(i) => text[..i].to_string(),
+        None => text,
+    };
+    suggest_field(&text).unwrap_or(text)
+}
+
+/// For "unknown field `x`, expected one of `a`, `b`", add the nearest.
+fn suggest_field(text: &str) -> Option<String> {
+    let start = text.find("unknown field `")?;
+    let (prefix, rest) = text.split_at(start);
+    let rest = rest.strip_prefix("unknown field `")?;
+    let (field, expected) = rest.split_once('`')?;
+    let names: Vec<&str> = expected.split('`').skip(1).step_by(2).collect();
+    let near = crate::suggest::suggest(field, names.iter().copied())?;
+    Some(format!(
+        "{prefix}unknown field `{field}` (did you mean `{near}`?)"
+    ))
+}
+
+/// The default rule files, named `rules/<file>`.
+fn default_sources() -> Vec<(SourceMap, bool)> {
+    let mut files: Vec<(SourceMap, bool)> = DEFAULT_RULES
+        .files()
+        .filter(|f| f.path().extension().is_some_and(|e| e == "yaml"))
+        .filter_map(|f| {
+            Some((
+                SourceMap::new(format!("rules/{}", f.path().display()), f.contents_utf8()?),
+                false,
+            ))
+        })
+        .collect();
+    files.sort_by(|a, b| a.0.name.cmp(&b.0.name));
+    files
+}
+
+/// The `*.yaml` files of a user folder, sorted by name.
+fn read_dir(dir: &Path) -> Result<Vec<SourceMap>, RulesError> {
+    let read_err = |source| RulesError::Read {
+        path: dir.display().to_string(),
+        source,
+    };
+    let mut paths: Vec<PathBuf> = std::fs::read_dir(dir)
+        .map_err(read_err)?
+        .filter_map(Result::ok)
+        .map(|e| e.path())
+        .filter(|p| p.extension().is_some_and(|e| e == "yaml" || e == "yml"))
+        .collect();
+    paths.sort();
+    paths
+        .into_iter()
+        .map(|path| {
+            let metadata = std::fs::metadata(&path).map_err(|source| RulesError::Read {
+                path: path.display().to_string(),
+                source,
+            })?;
+            if metadata.len() > MAX_RULE_FILE_BYTES {
+                return Err(RulesError::Invalid {
+                    at: path.display().to_string(),
+                    message: format!(
+                        "rule file is {} bytes; the limit is {MAX_RULE_FILE_BYTES}",
+                        metadata.len()
+                    ),
+                });
+            }
+            let text = std::fs::read_to_string(&path).map_err(|source| RulesError::Read {
+                path: path.display().to_string(),
+                source,
+            })?;
+            Ok(SourceMap::new(path.display().to_string(), text))
+        })
+        .collect()
+}
+
+/// The largest rule file read (1 MiB): far above any hand-written file.
+pub const MAX_RULE_FILE_BYTES: u64 = 1 << 20;
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn the_default_rule_base_loads_and_every_example_holds() {
+        let base = RuleBase::load(&[]).unwrap_or_else(|e| panic!("{e}"));
+        assert!(!base.rules.is_empty());
+        let results = base.run_examples();
+        let failed: Vec<String> = results
+            .iter()
+            .filter(|r| !r.passed)
+            .map(|r| format!("{}: {}: {}", r.rule, r.example, r.detail))
+            .collect();
+        assert!(failed.is_empty(), "{}", failed.join("\n"));
+    }
+
+    fn load_extra(name: &str, text: &str) -> String {
+        let mut sources = default_sources();
+        sources.push((SourceMap::new(name, text), true));
+        match RuleBase::from_sources(sources) {
+            Ok(_) => "loaded".to_string(),
+            Err(e) => e.to_string(),
+        }
+    }
+
+    #[test]
+    fn errors_name_the_file_line_and_column() {
+        let typo = "version: 1\nsettings:\n  - id: x\n    kind: pressure\n    valeu: 3 bar\n    source: from memory\n";
+        assert_eq!(
+            load_extra("mine/typo.yaml", typo),
+            "mine/typo.yaml:5:5: settings[0]: unknown field `valeu` (did you mean `value`?)"
+        );
+        let dimension = "version: 1\nderived:\n  - id: odd\n    kind: pressure\n    label: Odd\n    formula: supply_pressure + 3 L/min\n";
+        let message = load_extra("mine/odd.yaml", dimension);
+        assert!(message.starts_with("mine/odd.yaml:6:14: "), "{message}");
+        assert!(message.contains("flow"), "{message}");
+        let unknown = "version: 1\nderived:\n  - id: odd\n    kind: pressure\n    label: Odd\n    formula: suply_pressure * 2\n";
+        assert_eq!(
+            load_extra("mine/unknown.yaml", unknown),
+            "mine/unknown.yaml:6:14: unknown quantity `suply_pressure` (did you mean `supply_pressure`?)"
+        );
+    }
+}
