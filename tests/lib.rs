@@ -2,3 +2,4 @@
 mod calc;
 
 mod cases;
+mod demo;

@@ -81,6 +81,14 @@ pub enum Command {
     Calc(Box<CalcArguments>),
     /// Past case notes: add, search, show, stats.
     Cases(Box<super::cases_arguments::CasesArguments>),
+    /// Show the tool's job on the invented demo plant.
+    #[command(
+        long_about = "Show the tool's job on the invented demo plant: the six demo \
+machines with what their nameplate data settles, then a breakdown call on press-4 with its \
+readings, every rule that applies and what its check says, with the numbers.\n\n\
+Example: spoolsleuth demo --units us"
+    )]
+    Demo,
     /// Load, lint, list and explain the rule base.
     Rules(RulesArguments),
 }

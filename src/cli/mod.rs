@@ -9,6 +9,7 @@ mod calc_report;
 mod cases_arguments;
 mod cases_command;
 mod context;
+mod demo_command;
 mod rules_arguments;
 mod rules_command;
 
@@ -25,6 +26,7 @@ pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
     match arguments.command {
         Command::Calc(calc) => calc_command::execute(&context, *calc),
         Command::Cases(cases) => cases_command::execute(*cases),
+        Command::Demo => demo_command::execute(&context),
         Command::Rules(args) => rules_command::execute(&context, args.action),
     }
 }
