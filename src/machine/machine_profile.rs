@@ -2,20 +2,11 @@
 
 use std::collections::BTreeMap;
 
-use serde::{Deserialize, Serialize};
+use serde::Deserialize;
 
+pub use crate::rules::Actuator;
 use crate::rules::{Circuit, Placement, RuleBase, Scalar};
 use crate::units::{Quantity, UnitSystem};
-
-/// What drives the load.
-#[derive(Clone, Copy, Debug, PartialEq, Eq, Deserialize, Serialize)]
-#[serde(rename_all = "kebab-case")]
-pub enum Actuator {
-    /// A hydraulic cylinder.
-    Cylinder,
-    /// A hydraulic motor.
-    Motor,
-}
 
 /// One machine, as written in its YAML file.
 #[derive(Clone, Debug, Deserialize)]

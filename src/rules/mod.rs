@@ -19,8 +19,8 @@ pub use rule_base::{
     SymptomDef, MAX_RULE_FILE_BYTES,
 };
 pub use rule_file::{
-    Circuit, Effect, ExampleEntry, Expectation, Hazard, Placement, QuantitySource, RuleEntry,
-    Scalar,
+    Actuator, Circuit, Effect, ExampleEntry, Expectation, Hazard, Placement, QuantitySource,
+    RuleEntry, Scalar,
 };
 pub use rules_error::RulesError;
 pub use source_map::{Position, SourceMap};

@@ -8,8 +8,8 @@ use regex::{Regex, RegexBuilder};
 
 use super::formulas::{self, Check, Evidence, TypeEnv};
 use super::rule_file::{
-    CauseEntry, CautionEntry, Circuit, DerivedEntry, Placement, PointEntry, QuantityEntry,
-    QuantitySource, RuleEntry, RuleFile, SettingEntry, SymptomEntry,
+    Actuator, CauseEntry, CautionEntry, Circuit, DerivedEntry, Placement, PointEntry,
+    QuantityEntry, QuantitySource, RuleEntry, RuleFile, SettingEntry, SymptomEntry,
 };
 use super::source_map::{Position, SourceMap};
 use super::RulesError;
@@ -114,6 +114,8 @@ pub struct RuleDef {
     pub check: Check,
     /// The compiled evidence sentence.
     pub evidence: Evidence,
+    /// The actuator its readings belong to, if only one kind has them.
+    pub actuator: Option<Actuator>,
     /// Where it came from.
     pub origin: Origin,
 }
@@ -123,6 +125,14 @@ impl RuleDef {
     pub fn applies_to(&self, circuit: Circuit, placement: Placement) -> bool {
         (self.entry.circuits.is_empty() || self.entry.circuits.contains(&circuit))
             && (self.entry.placements.is_empty() || self.entry.placements.contains(&placement))
+    }
+
+    /// True when the rule's readings exist on this actuator (or it is unknown).
+    pub fn fits_actuator(&self, actuator: Option<Actuator>) -> bool {
+        match (self.actuator, actuator) {
+            (Some(needed), Some(have)) => needed == have,
+            _ => true,
+        }
     }
 }
 
@@ -531,14 +541,53 @@ impl RuleBase {
             }
         };
         match (check, evidence) {
-            (Some(check), Some(evidence)) if errors.is_empty() => Ok(RuleDef {
-                entry,
-                check,
-                evidence,
-                origin,
-            }),
+            (Some(check), Some(evidence)) if errors.is_empty() => {
+                let actuator = self.actuator_of(&check.inputs());
+                Ok(RuleDef {
+                    entry,
+                    check,
+                    evidence,
+                    actuator,
+                    origin,
+                })
+            }
             _ => Err(errors),
         }
+    }
+
+    /// The quantities (without points) a set of names reads, following
+    /// derived quantities down to the readings they are computed from.
+    pub fn base_inputs(&self, names: &[String]) -> BTreeSet<String> {
+        let mut out = BTreeSet::new();
+        let mut stack: Vec<String> = names
+            .iter()
+            .map(|n| n.split('@').next().unwrap_or(n).to_string())
+            .collect();
+        let mut seen = BTreeSet::new();
+        while let Some(name) = stack.pop() {
+            if !seen.insert(name.clone()) {
+                continue;
+            }
+            if let Some(d) = self.derived.iter().find(|d| d.entry.id == name) {
+                stack.extend(
+                    d.formula
+                        .inputs()
+                        .into_iter()
+                        .map(|n| n.split('@').next().unwrap_or(&n).to_string()),
+                );
+            } else if self.quantities.contains_key(&name) {
+                out.insert(name);
+            }
+        }
+        out
+    }
+
+    /// The actuator a set of readings belongs to, if any of them exists on
+    /// one kind only.
+    fn actuator_of(&self, names: &[String]) -> Option<Actuator> {
+        self.base_inputs(names)
+            .iter()
+            .find_map(|n| self.quantities.get(n).and_then(|q| q.entry.actuator))
     }
 
     /// A rule by id, or an error with the nearest id.

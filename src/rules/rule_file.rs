@@ -55,10 +55,35 @@ pub enum QuantitySource {
     Observation,
 }
 
+/// What drives the load.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, Deserialize, serde::Serialize)]
+#[serde(rename_all = "kebab-case")]
+pub enum Actuator {
+    /// A hydraulic cylinder.
+    Cylinder,
+    /// A hydraulic motor.
+    Motor,
+}
+
+impl Actuator {
+    /// The name as written in files.
+    pub fn name(self) -> &'static str {
+        match self {
+            Actuator::Cylinder => "cylinder",
+            Actuator::Motor => "motor",
+        }
+    }
+}
+
 /// A quantity a technician can read or look up.
 #[derive(Clone, Debug, Deserialize)]
 #[serde(deny_unknown_fields)]
 pub struct QuantityEntry {
+    /// The actuator the quantity belongs to, when only one kind has it
+    /// (a rod speed exists only on a cylinder); rules that read it apply
+    /// only to that actuator.
+    #[serde(default)]
+    pub actuator: Option<Actuator>,
     /// Cautions that go with taking the reading.
     #[serde(default)]
     pub cautions: Vec<String>,
