@@ -45,6 +45,9 @@ impl From<ExitStatus> for ExitCode {
 /// Any error the library reports to the user.
 #[derive(Debug, thiserror::Error)]
 pub enum Error {
+    /// A diagnosis could not start from the input given.
+    #[error(transparent)]
+    Diagnosis(#[from] crate::diagnosis::DiagnosisError),
     /// Writing the output failed (other than a closed pipe, which is not an error).
     #[error("cannot write output: {0}")]
     Io(#[from] std::io::Error),

@@ -8,6 +8,7 @@
 //! DEVELOPERS.md for the architecture.
 
 pub mod cli;
+pub mod diagnosis;
 pub mod error;
 pub mod formula;
 pub mod index;

@@ -37,7 +37,10 @@ impl CauseStatus {
     pub fn is_open(self) -> bool {
         matches!(
             self,
-            CauseStatus::Likely | CauseStatus::Possible | CauseStatus::NotYetTested | CauseStatus::Unlikely
+            CauseStatus::Likely
+                | CauseStatus::Possible
+                | CauseStatus::NotYetTested
+                | CauseStatus::Unlikely
         )
     }
 }

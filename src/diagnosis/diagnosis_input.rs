@@ -14,6 +14,9 @@ pub struct DiagnosisInput {
     pub circuit: Circuit,
     /// The technician's own words.
     pub complaint: Option<String>,
+    /// The machine's own past: how often each cause was found for each
+    /// symptom over its recent cases (counts as prior evidence).
+    pub history: Vec<CauseHistory>,
     /// The machine profile, when the machine is known.
     pub machine: Option<MachineProfile>,
     /// Where the valve sits.
@@ -34,6 +37,7 @@ impl DiagnosisInput {
             actuator: Some(machine.actuator),
             circuit: machine.circuit,
             complaint: None,
+            history: Vec::new(),
             placement: machine.placement,
             readings: Vec::new(),
             symptoms: Vec::new(),
@@ -41,4 +45,17 @@ impl DiagnosisInput {
             machine: Some(machine),
         }
     }
+}
+
+/// How often a cause was found for a symptom over a machine's recent cases.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct CauseHistory {
+    /// Symptom id.
+    pub symptom: String,
+    /// Cause id.
+    pub cause: String,
+    /// Cases with this symptom that had this cause.
+    pub count: usize,
+    /// Cases with this symptom in the window looked at.
+    pub of: usize,
 }
