@@ -267,10 +267,11 @@ fn gather_readings(
                     problems.push(ConsistencyProblem {
                         rule: "same-reading-twice".into(),
                         message: format!(
-                            "`{name}` was given twice and the two disagree: {} and {} ({} apart); the first is used",
+                            "`{name}` was given twice and the two disagree: {} and {} ({:.0} % apart); the first is used",
                             first_text.get(name).map_or("", String::as_str),
                             text.trim(),
-                            format!("{:.0} %", 100.0 * (old.si() - value.si()).abs() / scale)
+                            100.0 * (old.si() - value.si()).abs() / scale
+                        
                         ),
                     });
                 }
