@@ -271,7 +271,6 @@ fn gather_readings(
                             first_text.get(name).map_or("", String::as_str),
                             text.trim(),
                             100.0 * (old.si() - value.si()).abs() / scale
-                        
                         ),
                     });
                 }
