@@ -400,6 +400,19 @@ fn a_damaged_or_missing_index_file_leads_to_a_rebuild() {
         stderr(&output)
     );
 
+    // Zeros written inside a file, size unchanged: only the checksums tell.
+    let victim = largest_index_file(&workspace);
+    let mut bytes = fs::read(&victim).unwrap();
+    let middle = bytes.len() / 2;
+    bytes[middle - 8..middle + 8].fill(0);
+    fs::write(&victim, bytes).unwrap();
+    let output = workspace.run(&["search", "", "--json"]);
+    assert_eq!(ids(&output).len(), 2);
+    assert_eq!(
+        stderr(&output),
+        "note: rebuilt the search index because 1 of its files were damaged\n"
+    );
+
     fs::remove_file(largest_index_file(&workspace)).unwrap();
     let output = workspace.run(&["search", "", "--json"]);
     assert_eq!(ids(&output).len(), 2);

@@ -27,12 +27,21 @@ pub struct ManifestEntry {
     pub size: u64,
 }
 
-/// File name → what was indexed, plus the schema version it was indexed with.
+/// Size and modification time (ns) of each file of the index itself.
+pub type IndexFingerprint = BTreeMap<String, (u64, u128)>;
+
+/// File name → what was indexed, plus the schema version it was indexed with
+/// and the state of the index files when it was written.
 #[derive(Clone, Debug, Default, PartialEq, Eq)]
 pub struct Manifest {
     /// The entries, by file name.
     pub entries: BTreeMap<String, ManifestEntry>,
+    /// The index files as they were after the last write; a search checks
+    /// the index's checksums only when these differ.
+    pub index_files: IndexFingerprint,
 }
+
+const INDEX_FILE_PREFIX: &str = "#index\t";
 
 /// Why a manifest could not be used.
 #[derive(Debug, PartialEq, Eq)]
@@ -70,8 +79,17 @@ impl Manifest {
             return Err(ManifestProblem::OtherVersion(version.to_string()));
         }
         let mut entries = BTreeMap::new();
+        let mut index_files = BTreeMap::new();
         for (number, line) in lines.enumerate() {
             let bad = || ManifestProblem::Unreadable(format!("line {}", number + 2));
+            if let Some(rest) = line.strip_prefix(INDEX_FILE_PREFIX) {
+                let mut parts = rest.splitn(3, '\t');
+                let mut next = || parts.next().ok_or_else(bad);
+                let size = next()?.parse().map_err(|_| bad())?;
+                let mtime = next()?.parse().map_err(|_| bad())?;
+                index_files.insert(next()?.to_string(), (size, mtime));
+                continue;
+            }
             let mut parts = line.splitn(5, '\t');
             let mut next = || parts.next().ok_or_else(bad);
             let size = next()?.parse().map_err(|_| bad())?;
@@ -89,11 +107,17 @@ impl Manifest {
                 },
             );
         }
-        Ok(Manifest { entries })
+        Ok(Manifest {
+            entries,
+            index_files,
+        })
     }
 
     fn render(&self) -> String {
         let mut out = format!("{MAGIC} {SCHEMA_VERSION}\n");
+        for (name, (size, mtime)) in &self.index_files {
+            out.push_str(&format!("{INDEX_FILE_PREFIX}{size}\t{mtime}\t{name}\n"));
+        }
         for (name, entry) in &self.entries {
             out.push_str(&format!(
                 "{}\t{}\t{:016x}\t{name}",
@@ -143,6 +167,7 @@ mod tests {
     #[test]
     fn round_trips_entries_and_broken_notes() {
         let mut manifest = Manifest::default();
+        manifest.index_files.insert("meta.json".into(), (12, 34));
         manifest.entries.insert(
             "a b.md".into(),
             ManifestEntry {
@@ -160,6 +185,7 @@ mod tests {
             Some("a b.md:3:1: unknown field")
         );
         assert_eq!(back.entries["a b.md"].hash, 0xdead_beef);
+        assert_eq!(back.index_files, manifest.index_files);
     }
 
     #[test]

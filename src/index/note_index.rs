@@ -6,12 +6,13 @@
 
 use std::fs::{self, File, OpenOptions};
 use std::path::{Path, PathBuf};
+use std::time::UNIX_EPOCH;
 
 use fs4::fs_std::FileExt;
 use indicatif::{ProgressBar, ProgressStyle};
 use tantivy::{Index, IndexReader, IndexWriter, ReloadPolicy, Searcher, TantivyError, Term};
 
-use super::manifest::{ManifestProblem, MANIFEST_FILE};
+use super::manifest::{IndexFingerprint, ManifestProblem, MANIFEST_FILE};
 use super::{
     content_hash, register_index_analyzers, IndexError, IndexLocation, IndexResult, Manifest,
     ManifestEntry, NoteSchema, SyncReport,
@@ -217,10 +218,12 @@ impl NoteIndex {
         }
         if let Some(mut writer) = writer {
             writer.commit().map_err(|e| tantivy(&dir, e))?;
-            manifest.save(&dir)?;
             writer
                 .wait_merging_threads()
                 .map_err(|e| tantivy(&dir, e))?;
+            // Saved after the commit: a crash in between only redoes the changes.
+            manifest.index_files = index_fingerprint(&dir)?;
+            manifest.save(&dir)?;
             self.reader.reload().map_err(|e| tantivy(&dir, e))?;
         } else {
             manifest.save(&dir)?;
@@ -293,6 +296,7 @@ impl NoteIndex {
         progress.set_message("committing");
         writer.commit().map_err(|e| tantivy(dir, e))?;
         writer.wait_merging_threads().map_err(|e| tantivy(dir, e))?;
+        manifest.index_files = index_fingerprint(dir)?;
         manifest.save(dir)?;
         progress.finish_and_clear();
         report.broken = broken_of(&folder, &manifest);
@@ -462,6 +466,28 @@ fn is_own_file(name: &str) -> bool {
         || name == MANIFEST_FILE
         || name == LOCK_FILE
         || name.starts_with(".spoolsleuth-manifest-")
+}
+
+/// Size and modification time of the index's files (not its lock files).
+fn index_fingerprint(dir: &Path) -> IndexResult<IndexFingerprint> {
+    let mut files = IndexFingerprint::new();
+    for entry in fs::read_dir(dir).map_err(|e| IndexError::io(dir, e))? {
+        let entry = entry.map_err(|e| IndexError::io(dir, e))?;
+        let name = entry.file_name().to_string_lossy().into_owned();
+        if !is_index_file(&name) || name.ends_with(".lock") {
+            continue;
+        }
+        let metadata = entry
+            .metadata()
+            .map_err(|e| IndexError::io(entry.path(), e))?;
+        let mtime = metadata
+            .modified()
+            .ok()
+            .and_then(|t| t.duration_since(UNIX_EPOCH).ok())
+            .map_or(0, |d| d.as_nanos());
+        files.insert(name, (metadata.len(), mtime));
+    }
+    Ok(files)
 }
 
 fn remove_index_files(dir: &Path) -> IndexResult<()> {
