@@ -7,8 +7,8 @@
 //! and length so that no input can overflow the stack. A parser library
 //! would add a dependency and a second tokenizer, while numbers and units
 //! must be read by the same scanner and unit catalogue as technician input.
-//! A Pratt parser states each operator's binding power in one place, needs
-//! no backtracking, and compiles a typical check in about a microsecond.
+//! A Pratt parser states each operator's binding power in one place and
+//! needs no backtracking.
 
 use super::expr::{precedence, BinaryOp, Expr, Literal, UnaryOp};
 use super::formula_error::{FormulaError, FormulaErrorKind, Span};
