@@ -107,15 +107,18 @@ fn check_text(context: &Context, report: &CheckReport) -> String {
     let mut out = format!("{t}\n");
     for r in report.results.iter().filter(|r| !r.passed) {
         out.push_str(&format!(
-            "{}: {}: {}\n",
+            "{}: rule `{}`, example `{}`: expected {}, got {}: {}\n",
             color.red("failed"),
             r.rule,
+            r.example,
+            expectation(Some(r.expected)),
+            expectation(r.got),
             r.detail
         ));
     }
     for o in &report.overrides {
         out.push_str(&format!(
-            "override: rule `{}` at {} replaces {}\n",
+            "override: rule `{}` at {} replaces the built-in rule at {}\n",
             o.id, o.at, o.replaces
         ));
     }
@@ -237,7 +240,8 @@ fn list(context: &Context, json: bool, symptom: Option<&str>) -> Result<ExitStat
             v.inputs.join(", "),
         ]);
     }
-    output::print(&format!("{t}\n{} rules", views.len()))?;
+    let noun = if views.len() == 1 { "rule" } else { "rules" };
+    output::print(&format!("{t}\n{} {noun}", views.len()))?;
     Ok(ExitStatus::Success)
 }
 

@@ -70,6 +70,11 @@ impl Check {
         self.formula.value_type() == crate::formula::ValueType::Bool
     }
 
+    /// What the formula computes, with an article: "a pressure", "true or false".
+    pub fn describe(&self) -> String {
+        self.formula.value_type().describe(self.formula.kind())
+    }
+
     /// Check that the formula computes a value that fits `kind`.
     pub fn expect_kind(&self, kind: Kind) -> Result<(), String> {
         let t = self.formula.value_type();
@@ -146,12 +151,21 @@ impl Evidence {
 /// Identifiers a formula text mentions (for ordering derived quantities
 /// before they are compiled).
 pub fn referenced_names(text: &str) -> Vec<String> {
+    identifiers(text).map(|m| m.as_str().to_string()).collect()
+}
+
+/// The byte offset of the first mention of `name` as a whole identifier.
+pub fn name_offset(text: &str, name: &str) -> Option<usize> {
+    identifiers(text)
+        .find(|m| m.as_str() == name)
+        .map(|m| m.start())
+}
+
+fn identifiers(text: &str) -> regex::Matches<'static, '_> {
     static IDENT: OnceLock<Regex> = OnceLock::new();
-    let ident = IDENT.get_or_init(|| Regex::new(r"[A-Za-z_][A-Za-z0-9_]*").expect("valid regex"));
-    ident
+    IDENT
+        .get_or_init(|| Regex::new(r"[A-Za-z_][A-Za-z0-9_]*").expect("valid regex"))
         .find_iter(text)
-        .map(|m| m.as_str().to_string())
-        .collect()
 }
 
 /// Every function rule authors can call: name, signature, what it computes.

@@ -107,15 +107,33 @@ impl RuleBase {
                 values.entry(format!("{name}@{p}")).or_insert(*value);
             }
         }
+        // One view per point, kept in step with `values` as each derived
+        // quantity is added, rather than rebuilt for every derived quantity
+        // and point (which made running the examples slow).
+        let mut views: Vec<(String, Values)> = points
+            .iter()
+            .map(|p| (p.clone(), point_view(&values, p)))
+            .collect();
         for derived in &self.derived {
             let id = &derived.entry.id;
             if let Some(v) = derived.formula.evaluate_quantity(&values) {
                 values.insert(id.clone(), v);
+                for (_, view) in &mut views {
+                    view.insert(id.clone(), v);
+                }
             }
-            for p in &points {
-                let view = point_view(&values, p);
-                if let Some(v) = derived.formula.evaluate_quantity(&view) {
-                    values.insert(format!("{id}@{p}"), v);
+            for index in 0..views.len() {
+                let (point, view) = &views[index];
+                let Some(v) = derived.formula.evaluate_quantity(view) else {
+                    continue;
+                };
+                let tagged = format!("{id}@{point}");
+                values.insert(tagged.clone(), v);
+                for (other, (_, view)) in views.iter_mut().enumerate() {
+                    view.insert(tagged.clone(), v);
+                    if other == index {
+                        view.insert(id.clone(), v);
+                    }
                 }
             }
         }

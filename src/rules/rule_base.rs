@@ -2,7 +2,9 @@
 //! and dimension-checked, every reference resolved.
 
 use std::collections::{BTreeMap, BTreeSet};
+use std::io::Read;
 use std::path::{Path, PathBuf};
+use std::sync::OnceLock;
 
 use regex::{Regex, RegexBuilder};
 
@@ -26,11 +28,21 @@ pub struct Origin {
     pub file: String,
     /// The line of its `id:`.
     pub line: usize,
+    /// The column of its `id:` value.
+    pub column: usize,
     /// The file of the default entry this one replaces, if any.
     pub replaces: Option<String>,
 }
 
 impl Origin {
+    /// Where its `id:` value starts (`None` when it was not found).
+    pub fn position(&self) -> Option<Position> {
+        (self.line > 0).then_some(Position {
+            line: self.line,
+            column: self.column,
+        })
+    }
+
     /// `file:line`.
     pub fn at(&self) -> String {
         format!("{}:{}", self.file, self.line)
@@ -266,25 +278,30 @@ impl RuleBase {
         self.sources.iter().find(|s| s.name == file)
     }
 
-    fn invalid(&self, origin: &Origin, id: &str, key: Option<&str>, message: String) -> RulesError {
-        let position = self.source(&origin.file).and_then(|s| match key {
-            Some(k) => s.key(id, k),
-            None => s.entry(id),
-        });
-        invalid_at(&origin.file, position, message)
+    /// An error at an entry, or at the value of one of its keys.
+    fn invalid(&self, origin: &Origin, key: Option<&str>, message: String) -> RulesError {
+        invalid_at(&origin.file, self.position(origin, key), message)
     }
 
-    fn kind(&self, origin: &Origin, id: &str, text: &str) -> Result<Kind, RulesError> {
+    /// Where an entry, or the value of one of its keys, starts.
+    fn position(&self, origin: &Origin, key: Option<&str>) -> Option<Position> {
+        let entry = origin.position()?;
+        match (key, self.source(&origin.file)) {
+            (Some(k), Some(s)) => Some(s.key(entry, k)),
+            _ => Some(entry),
+        }
+    }
+
+    fn kind(&self, origin: &Origin, text: &str) -> Result<Kind, RulesError> {
         text.parse::<Kind>()
-            .map_err(|message| self.invalid(origin, id, Some("kind"), message))
+            .map_err(|message| self.invalid(origin, Some("kind"), message))
     }
 
     fn quantity(&self, entry: QuantityEntry, origin: Origin) -> Result<QuantityDef, RulesError> {
-        let kind = self.kind(&origin, &entry.id, &entry.kind)?;
+        let kind = self.kind(&origin, &entry.kind)?;
         if !(1..=5).contains(&entry.effort) {
             return Err(self.invalid(
                 &origin,
-                &entry.id,
                 Some("effort"),
                 format!(
                     "effort must be from 1 (easy) to 5 (hard), found {}",
@@ -296,7 +313,7 @@ impl RuleBase {
             Some([low, high]) => {
                 let parse = |t: &str| {
                     units::parse_as(t, kind)
-                        .map_err(|e| self.invalid(&origin, &entry.id, Some("range"), e.to_string()))
+                        .map_err(|e| self.invalid(&origin, Some("range"), e.to_string()))
                 };
                 Some((parse(low)?, parse(high)?))
             }
@@ -311,13 +328,12 @@ impl RuleBase {
     }
 
     fn setting(&self, entry: SettingEntry, origin: Origin) -> Result<SettingDef, RulesError> {
-        let kind = self.kind(&origin, &entry.id, &entry.kind)?;
+        let kind = self.kind(&origin, &entry.kind)?;
         let value = units::parse_as(&entry.value.0, kind)
-            .map_err(|e| self.invalid(&origin, &entry.id, Some("value"), e.to_string()))?;
+            .map_err(|e| self.invalid(&origin, Some("value"), e.to_string()))?;
         if entry.source.trim().is_empty() {
             return Err(self.invalid(
                 &origin,
-                &entry.id,
                 Some("source"),
                 "a setting needs a source: a citation, `common practice` or `from memory`".into(),
             ));
@@ -337,17 +353,7 @@ impl RuleBase {
                 .case_insensitive(true)
                 .size_limit(1 << 20)
                 .build()
-                .map_err(|e| {
-                    self.invalid(
-                        &origin,
-                        &entry.id,
-                        Some("phrases"),
-                        format!(
-                            "bad phrase pattern `{phrase}`: {}",
-                            first_line(&e.to_string())
-                        ),
-                    )
-                })?;
+                .map_err(|e| self.phrase_error(&origin, phrase, &e))?;
             patterns.push(regex);
         }
         Ok(SymptomDef {
@@ -355,6 +361,26 @@ impl RuleBase {
             patterns,
             origin,
         })
+    }
+
+    /// A phrase that is not a valid regular expression, located at the
+    /// fault inside the phrase when the phrase is written on one line as is.
+    fn phrase_error(&self, origin: &Origin, phrase: &str, error: &regex::Error) -> RulesError {
+        let (reason, offset) = regex_reason(error);
+        let phrases = self.position(origin, Some("phrases"));
+        let position = phrases.and_then(|from| {
+            let at = self.source(&origin.file)?.find_from(from, phrase)?;
+            let shift = offset.filter(|o| *o <= phrase.chars().count()).unwrap_or(0);
+            Some(Position {
+                line: at.line,
+                column: at.column + shift,
+            })
+        });
+        invalid_at(
+            &origin.file,
+            position.or(phrases),
+            format!("bad phrase pattern `{phrase}`: {reason}"),
+        )
     }
 
     /// The compile-time environment: every quantity, setting and derived
@@ -394,7 +420,7 @@ impl RuleBase {
                 let refs = formulas::referenced_names(&entry.formula);
                 let blocked = refs
                     .iter()
-                    .any(|n| all_ids.contains(n) && !env.names.contains_key(n) && *n != entry.id);
+                    .any(|n| all_ids.contains(n) && !env.names.contains_key(n));
                 if blocked {
                     waiting.push((entry, origin));
                     continue;
@@ -409,16 +435,38 @@ impl RuleBase {
                 break;
             }
         }
-        for (entry, origin) in pending {
-            errors.push(self.invalid(
-                &origin,
-                &entry.id,
-                Some("formula"),
-                format!(
-                    "derived quantity `{}` depends on itself through other derived quantities",
-                    entry.id
-                ),
-            ));
+        self.report_cycles(pending, errors);
+    }
+
+    /// Report each cycle among the derived quantities that never compiled,
+    /// once, at the formula of its first member in file order, pointing at
+    /// the name that closes the loop. A quantity that only depends on a
+    /// cycle, or on a quantity with an error of its own, is not reported: it
+    /// compiles once that is fixed.
+    fn report_cycles(
+        &self,
+        mut pending: Vec<(DerivedEntry, Origin)>,
+        errors: &mut Vec<RulesError>,
+    ) {
+        pending.sort_by(|a, b| (&a.1.file, a.1.line).cmp(&(&b.1.file, b.1.line)));
+        let graph: BTreeMap<&str, Vec<String>> = pending
+            .iter()
+            .map(|(e, _)| (e.id.as_str(), formulas::referenced_names(&e.formula)))
+            .collect();
+        let mut reported: BTreeSet<String> = BTreeSet::new();
+        for (entry, origin) in &pending {
+            let Some(cycle) = cycle_through(&graph, &entry.id) else {
+                continue;
+            };
+            if cycle.iter().any(|id| reported.contains(id)) {
+                continue;
+            }
+            reported.extend(cycle.iter().cloned());
+            let next = cycle.get(1).unwrap_or(&entry.id);
+            let offset = formulas::name_offset(&entry.formula, next).unwrap_or(0);
+            let path = cycle.join(" → ");
+            let message = format!("derived quantity `{}` depends on itself: {path}", entry.id);
+            errors.push(self.formula_error(origin, "formula", &entry.formula, offset, &message));
         }
     }
 
@@ -428,10 +476,10 @@ impl RuleBase {
         entry: DerivedEntry,
         origin: Origin,
     ) -> Result<DerivedDef, RulesError> {
-        let kind = self.kind(&origin, &entry.id, &entry.kind)?;
-        let formula = self.compile(env, &origin, &entry.id, "formula", &entry.formula)?;
+        let kind = self.kind(&origin, &entry.kind)?;
+        let formula = self.compile(env, &origin, "formula", &entry.formula)?;
         if let Err(message) = formula.expect_kind(kind) {
-            return Err(self.invalid(&origin, &entry.id, Some("formula"), message));
+            return Err(self.invalid(&origin, Some("formula"), message));
         }
         Ok(DerivedDef {
             entry,
@@ -445,26 +493,23 @@ impl RuleBase {
         &self,
         env: &TypeEnv,
         origin: &Origin,
-        id: &str,
         key: &str,
         text: &str,
     ) -> Result<Check, RulesError> {
-        Check::compile(text, env).map_err(|(offset, message)| {
-            self.formula_error(origin, id, key, text, offset, &message)
-        })
+        Check::compile(text, env)
+            .map_err(|(offset, message)| self.formula_error(origin, key, text, offset, &message))
     }
 
     fn formula_error(
         &self,
         origin: &Origin,
-        id: &str,
         key: &str,
         text: &str,
         offset: usize,
         message: &str,
     ) -> RulesError {
         let position = self.source(&origin.file).and_then(|s| {
-            let at = s.key(id, key)?;
+            let at = s.key(origin.position()?, key);
             // Step past the quotes when the scalar on the line is the formula.
             let column = match s.scalar_at(at) {
                 Some((content, column)) if content.trim() == text.trim() => column,
@@ -481,12 +526,10 @@ impl RuleBase {
     fn rule(&self, entry: RuleEntry, origin: Origin) -> Result<RuleDef, Vec<RulesError>> {
         let env = self.type_env();
         let mut errors = Vec::new();
-        let id = entry.id.clone();
         if !self.causes.contains_key(&entry.cause) {
             let known = self.causes.keys().map(String::as_str);
             errors.push(self.invalid(
                 &origin,
-                &id,
                 Some("cause"),
                 unknown("cause", &entry.cause, known),
             ));
@@ -496,7 +539,6 @@ impl RuleBase {
                 let known = self.symptoms.iter().map(|s| s.entry.id.as_str());
                 errors.push(self.invalid(
                     &origin,
-                    &id,
                     Some("symptoms"),
                     unknown("symptom", symptom, known),
                 ));
@@ -505,19 +547,20 @@ impl RuleBase {
         if !(entry.prior > 0.0 && entry.prior <= 1.0) {
             errors.push(self.invalid(
                 &origin,
-                &id,
                 Some("prior"),
                 format!("prior must be above 0 and at most 1, found {}", entry.prior),
             ));
         }
-        let check = match self.compile(&env, &origin, &id, "check", &entry.check) {
+        let check = match self.compile(&env, &origin, "check", &entry.check) {
             Ok(check) if check.is_condition() => Some(check),
-            Ok(_) => {
+            Ok(check) => {
                 errors.push(self.invalid(
                     &origin,
-                    &id,
                     Some("check"),
-                    "a check must be true or false (a comparison), not a quantity".into(),
+                    format!(
+                        "a check must be true or false, found {} (compare it with something)",
+                        check.describe()
+                    ),
                 ));
                 None
             }
@@ -531,7 +574,6 @@ impl RuleBase {
             Err((offset, message)) => {
                 errors.push(self.formula_error(
                     &origin,
-                    &id,
                     "evidence",
                     &entry.evidence,
                     offset,
@@ -661,6 +703,33 @@ impl RuleBase {
     }
 }
 
+/// The shortest way from `start` back to itself through `graph`, as the
+/// list of ids walked (`a`, `b`, `a`), if there is one.
+fn cycle_through(graph: &BTreeMap<&str, Vec<String>>, start: &str) -> Option<Vec<String>> {
+    let mut paths: Vec<Vec<String>> = vec![vec![start.to_string()]];
+    let mut seen: BTreeSet<String> = BTreeSet::new();
+    while !paths.is_empty() {
+        let mut next_paths = Vec::new();
+        for path in paths {
+            let last = path.last().map_or(start, String::as_str);
+            for name in graph.get(last).into_iter().flatten() {
+                if name == start {
+                    let mut cycle = path.clone();
+                    cycle.push(name.clone());
+                    return Some(cycle);
+                }
+                if graph.contains_key(name.as_str()) && seen.insert(name.clone()) {
+                    let mut longer = path.clone();
+                    longer.push(name.clone());
+                    next_paths.push(longer);
+                }
+            }
+        }
+        paths = next_paths;
+    }
+    None
+}
+
 /// `unknown <what> `<id>` (did you mean `<near>`?)`.
 pub fn unknown<'a>(what: &str, id: &str, known: impl Iterator<Item = &'a str>) -> String {
     match crate::suggest::suggest(id, known) {
@@ -677,8 +746,20 @@ fn invalid_at(file: &str, position: Option<Position>, message: String) -> RulesE
     RulesError::Invalid { at, message }
 }
 
-fn first_line(s: &str) -> String {
-    s.lines().last().unwrap_or(s).trim().to_string()
+/// The reason a pattern failed, and the character offset of the fault in
+/// the pattern when the regex crate marks it. Its message reads
+/// `regex parse error:`, the pattern indented by four, a `^` line under the
+/// fault, and `error: REASON`.
+fn regex_reason(error: &regex::Error) -> (String, Option<usize>) {
+    let text = error.to_string();
+    let lines: Vec<&str> = text.lines().collect();
+    let last = lines.last().map_or(text.as_str(), |l| l.trim());
+    let reason = last.strip_prefix("error: ").unwrap_or(last).to_string();
+    let offset = match lines.as_slice() {
+        [_, _, marker, _] => marker.find('^').and_then(|c| c.checked_sub(4)),
+        _ => None,
+    };
+    (reason, offset)
 }
 
 /// Entries gathered from every file, the later layer replacing the earlier.
@@ -697,11 +778,20 @@ struct Layers {
 
 macro_rules! merge {
     ($layers:expr, $parsed:expr, $dups:expr, $field:ident, $what:literal) => {
-        for entry in &$parsed.file.$field {
-            let line = $parsed.source.entry(&entry.id).map_or(0, |p| p.line);
+        for (index, entry) in $parsed.file.$field.iter().enumerate() {
+            // Two entries of one id in one list are told apart by occurrence.
+            let nth = $parsed.file.$field[..index]
+                .iter()
+                .filter(|e| e.id == entry.id)
+                .count();
+            let at = $parsed
+                .source
+                .entry(stringify!($field), &entry.id, nth)
+                .unwrap_or_default();
             let mut origin = Origin {
                 file: $parsed.source.name.clone(),
-                line,
+                line: at.line,
+                column: at.column,
                 replaces: None,
             };
             if let Some((_, old)) = $layers.$field.get(&entry.id) {
@@ -746,17 +836,18 @@ impl Layers {
 
 /// Parse one file, reporting YAML errors with their position.
 fn parse_file(source: &SourceMap) -> Result<RuleFile, RulesError> {
-    let file: RuleFile = serde_yaml::from_str(&source.text).map_err(|e| {
-        let position = e.location().map(|l| Position {
-            line: l.line(),
-            column: l.column(),
-        });
-        invalid_at(&source.name, position, yaml_message(&e))
-    })?;
+    if source.text.trim().is_empty() {
+        return Err(invalid_at(
+            &source.name,
+            Some(Position { line: 1, column: 1 }),
+            "the file is empty (a rule file starts with `version: 1`)".into(),
+        ));
+    }
+    let file: RuleFile = serde_yaml::from_str(&source.text).map_err(|e| yaml_error(source, e))?;
     if file.version != 1 {
         return Err(invalid_at(
             &source.name,
-            None,
+            source.top_level_key("version"),
             format!(
                 "unsupported rule-file version {} (this spoolsleuth reads version 1)",
                 file.version
@@ -766,28 +857,148 @@ fn parse_file(source: &SourceMap) -> Result<RuleFile, RulesError> {
     Ok(file)
 }
 
-/// serde_yaml's message without its trailing " at line X column Y", with a
-/// suggestion for a misspelt key.
-fn yaml_message(e: &serde_yaml::Error) -> String {
-    let text = e.to_string();
-    let text = match text.find(" at line ") {
-        Some(i) => text[..i].to_string(),
-        None => text,
+/// A YAML error with its position and a message in our words. A syntax
+/// error anywhere in the file is reported before any schema error, because
+/// the typed reading stops at the first missing field it meets, which is
+/// often only a symptom of a bad indentation further down.
+fn yaml_error(source: &SourceMap, typed: serde_yaml::Error) -> RulesError {
+    let error = serde_yaml::from_str::<serde_yaml::Value>(&source.text)
+        .err()
+        .unwrap_or(typed);
+    let mut position = error.location().map(|l| Position {
+        line: l.line(),
+        column: l.column(),
+    });
+    let text = error.to_string();
+    let (problem, context) = split_yaml_message(&text);
+    let tab =
+        problem.contains("tab character") || position.and_then(|p| source.char_at(p)) == Some('\t');
+    let message = match context {
+        _ if tab => "found a tab character in the indentation (indent with spaces)".to_string(),
+        Some((what, Some(at)))
+            if what.contains("quoted scalar") && problem.contains("end of stream") =>
+        {
+            position = Some(at);
+            "quoted text is never closed (add the closing quote)".to_string()
+        }
+        Some((what, at)) => syntax_message(problem, what, at),
+        None => match duplicate_key(problem) {
+            Some(key) => {
+                let first = position.map(|p| source.key(p, key));
+                let second = position.and_then(|p| source.nth_key(p.line, key, 1));
+                position = second.or(position);
+                let first_line = first.map_or(String::new(), |p| {
+                    format!(" (the first is on line {})", p.line)
+                });
+                format!("{}duplicate key `{key}`{first_line}", path_prefix(problem))
+            }
+            None => schema_message(problem),
+        },
     };
-    suggest_field(&text).unwrap_or(text)
+    invalid_at(&source.name, position, message)
 }
 
-/// For "unknown field `x`, expected one of `a`, `b`", add the nearest.
-fn suggest_field(text: &str) -> Option<String> {
-    let start = text.find("unknown field `")?;
+/// serde_yaml's text is `PROBLEM at line L column C`, optionally followed by
+/// `, while CONTEXT` and the context's own `at line L column C`: the
+/// problem, and the context with its position when given.
+fn split_yaml_message(text: &str) -> (&str, Option<(&str, Option<Position>)>) {
+    static PARTS: OnceLock<Regex> = OnceLock::new();
+    let parts = PARTS.get_or_init(|| {
+        Regex::new(
+            r"(?s)^(.*?) at line \d+ column \d+(?:, while (.*?)(?: at line (\d+) column (\d+))?)?$",
+        )
+        .expect("valid regex")
+    });
+    let Some(c) = parts.captures(text) else {
+        return (text, None);
+    };
+    let problem = c.get(1).map_or(text, |m| m.as_str());
+    let context = c.get(2).map(|what| {
+        let at = c.get(3).zip(c.get(4)).and_then(|(line, column)| {
+            Some(Position {
+                line: line.as_str().parse().ok()?,
+                column: column.as_str().parse().ok()?,
+            })
+        });
+        (what.as_str(), at)
+    });
+    (problem, context)
+}
+
+/// A YAML syntax error: the scanner's problem, the structure it was reading
+/// and where that structure starts, with a hint for the indentation faults
+/// that cause most of them.
+fn syntax_message(problem: &str, what: &str, at: Option<Position>) -> String {
+    let hint = if problem.contains("did not find expected")
+        || problem.contains("not allowed in this context")
+    {
+        " (check the indentation)"
+    } else {
+        ""
+    };
+    let Some(at) = at else {
+        return format!("{problem}{hint}");
+    };
+    let structure = what
+        .trim_start_matches("parsing ")
+        .trim_start_matches("scanning ")
+        .replace("a block collection", "the list")
+        .replace("a block mapping", "the mapping")
+        .replace("a plain scalar", "the value");
+    format!(
+        "{problem} in {structure} that starts at {}:{}{hint}",
+        at.line, at.column
+    )
+}
+
+/// The `rules[0].when_true: ` path serde_yaml puts in front of a message.
+fn path_prefix(problem: &str) -> &str {
+    match problem.find(": ") {
+        Some(i) if !problem[..i].contains(' ') => &problem[..i + 2],
+        _ => "",
+    }
+}
+
+/// The key of a "duplicate field `x`" or "duplicate entry with key "x"" message.
+fn duplicate_key(problem: &str) -> Option<&str> {
+    if let Some(rest) = problem.split("duplicate field `").nth(1) {
+        return rest.split('`').next();
+    }
+    let rest = problem.split("duplicate entry with key \"").nth(1)?;
+    rest.split('"').next()
+}
+
+/// A schema error in our words: serde's Rust type names replaced by what a
+/// rule author writes, and the nearest name for a misspelt key or value.
+fn schema_message(problem: &str) -> String {
+    static STRUCT: OnceLock<Regex> = OnceLock::new();
+    let structs = STRUCT.get_or_init(|| Regex::new(r"struct [A-Za-z]+").expect("valid regex"));
+    let text = structs
+        .replace_all(problem, "a mapping")
+        .replace("expected f64", "expected a number")
+        .replace("expected u8", "expected a whole number")
+        .replace("expected u32", "expected a whole number")
+        .replace("a sequence", "a list")
+        .replace("sequence,", "a list,")
+        .replace("unknown variant `", "unknown value `");
+    let text = suggest_name(&text, "unknown field `").unwrap_or(text);
+    let text = suggest_name(&text, "unknown value `").unwrap_or(text);
+    if text.contains("missing field `version`") {
+        return format!("{text} (a rule file starts with `version: 1`)");
+    }
+    text
+}
+
+/// For "unknown field `x`, expected one of `a`, `b`" (or "unknown value"),
+/// name the nearest instead of listing them all.
+fn suggest_name(text: &str, marker: &str) -> Option<String> {
+    let start = text.find(marker)?;
     let (prefix, rest) = text.split_at(start);
-    let rest = rest.strip_prefix("unknown field `")?;
-    let (field, expected) = rest.split_once('`')?;
+    let rest = rest.strip_prefix(marker)?;
+    let (name, expected) = rest.split_once('`')?;
     let names: Vec<&str> = expected.split('`').skip(1).step_by(2).collect();
-    let near = crate::suggest::suggest(field, names.iter().copied())?;
-    Some(format!(
-        "{prefix}unknown field `{field}` (did you mean `{near}`?)"
-    ))
+    let near = crate::suggest::suggest(name, names.iter().copied())?;
+    Some(format!("{prefix}{marker}{name}` (did you mean `{near}`?)"))
 }
 
 /// The default rule files, named `rules/<file>`.
@@ -819,29 +1030,47 @@ fn read_dir(dir: &Path) -> Result<Vec<SourceMap>, RulesError> {
         .filter(|p| p.extension().is_some_and(|e| e == "yaml" || e == "yml"))
         .collect();
     paths.sort();
-    paths
-        .into_iter()
-        .map(|path| {
-            let metadata = std::fs::metadata(&path).map_err(|source| RulesError::Read {
-                path: path.display().to_string(),
-                source,
-            })?;
-            if metadata.len() > MAX_RULE_FILE_BYTES {
-                return Err(RulesError::Invalid {
-                    at: path.display().to_string(),
-                    message: format!(
-                        "rule file is {} bytes; the limit is {MAX_RULE_FILE_BYTES}",
-                        metadata.len()
-                    ),
-                });
-            }
-            let text = std::fs::read_to_string(&path).map_err(|source| RulesError::Read {
-                path: path.display().to_string(),
-                source,
-            })?;
-            Ok(SourceMap::new(path.display().to_string(), text))
-        })
-        .collect()
+    paths.iter().map(|path| read_file(path)).collect()
+}
+
+/// One user rule file, within the size limit and as UTF-8 text.
+fn read_file(path: &Path) -> Result<SourceMap, RulesError> {
+    let name = path.display().to_string();
+    let read_err = |source| RulesError::Read {
+        path: name.clone(),
+        source,
+    };
+    let file = std::fs::File::open(path).map_err(read_err)?;
+    // Read one byte past the limit rather than trusting the file's size,
+    // which may change between a look and the read.
+    let mut bytes = Vec::new();
+    file.take(MAX_RULE_FILE_BYTES + 1)
+        .read_to_end(&mut bytes)
+        .map_err(read_err)?;
+    if bytes.len() as u64 > MAX_RULE_FILE_BYTES {
+        return Err(RulesError::Invalid {
+            at: name,
+            message: format!("rule file is larger than the limit of {MAX_RULE_FILE_BYTES} bytes"),
+        });
+    }
+    match String::from_utf8(bytes) {
+        Ok(text) => Ok(SourceMap::new(name, text)),
+        Err(e) => {
+            let valid = e.utf8_error().valid_up_to();
+            let bytes = e.into_bytes();
+            let before = std::str::from_utf8(&bytes[..valid]).unwrap_or_default();
+            let line = before.matches('\n').count() + 1;
+            let column = before.rsplit('\n').next().map_or(0, |l| l.chars().count()) + 1;
+            Err(invalid_at(
+                &name,
+                Some(Position { line, column }),
+                format!(
+                    "the file is not UTF-8 text (byte 0x{:02X} here); save it as UTF-8",
+                    bytes[valid]
+                ),
+            ))
+        }
+    }
 }
 
 /// The largest rule file read (1 MiB): far above any hand-written file.
