@@ -9,8 +9,8 @@ use serde::Serialize;
 use super::cause_assessment::{rank, CauseAssessment};
 use super::next_measurement::{choose, NextMeasurement};
 use super::reading_view::{read_all, ReadingView};
-use super::{DiagnosisError, DiagnosisInput};
-use crate::rules::{Circuit, Evaluated, Placement, Readings, RuleBase, RuleDef, Values};
+use super::{CauseHistory, DiagnosisError, DiagnosisInput};
+use crate::rules::{Actuator, Circuit, Evaluated, Placement, Readings, RuleBase, RuleDef, Values};
 use crate::units::UnitSystem;
 
 /// The symptom that marks readings which cannot all be true.
@@ -95,6 +95,8 @@ pub struct Diagnosis {
     pub schema_version: u32,
     /// The machine, if named.
     pub machine: Option<MachineView>,
+    /// What drives the load, when known.
+    pub actuator: Option<Actuator>,
     /// Circuit type.
     pub circuit: Circuit,
     /// Valve placement.
@@ -146,13 +148,21 @@ impl Diagnosis {
             .filter(|r| !r.entry.symptoms.iter().any(|s| s == IMPOSSIBLE_READINGS))
             .map(|r| (*r, r.check.evaluate(&values)))
             .collect();
+        // Only the history of the symptoms at hand counts: a cause found
+        // for another complaint on this machine says nothing about this one.
+        let history: Vec<CauseHistory> = input
+            .history
+            .iter()
+            .filter(|h| ids.contains(h.symptom.as_str()))
+            .cloned()
+            .collect();
         let causes = rank(
             base,
             &evaluated,
             &values,
             input.units,
             !consistency.is_empty(),
-            &input.history,
+            &history,
         );
         let next_measurement = choose(base, &causes, &evaluated, &values);
         let fix = leading_fix(base, &causes, &consistency);
@@ -163,6 +173,7 @@ impl Diagnosis {
                 id: m.id.clone(),
                 name: m.name.clone(),
             }),
+            actuator: input.actuator,
             circuit: input.circuit,
             placement: input.placement,
             units: input.units,
