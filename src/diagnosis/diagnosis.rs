@@ -145,7 +145,7 @@ impl Diagnosis {
         let evaluated: Vec<(&RuleDef, Evaluated)> = rules
             .iter()
             .filter(|r| r.entry.symptoms.iter().any(|s| ids.contains(s.as_str())))
-            .filter(|r| !r.entry.symptoms.iter().any(|s| s == IMPOSSIBLE_READINGS))
+            .filter(|r| !is_consistency_rule(r))
             .map(|r| (*r, r.check.evaluate(&values)))
             .collect();
         // Only the history of the symptoms at hand counts: a cause found
@@ -320,6 +320,17 @@ fn gather_readings(
     Ok((readings, problems, warnings))
 }
 
+/// The cause that readings which cannot all be true point to.
+const GAUGE_ERROR: &str = "gauge-error";
+
+/// A rule that tests whether the readings can all be true: filed under
+/// impossible readings and blaming a gauge. A rule filed there that blames a
+/// component (a rod reading above the relief that the area ratio explains)
+/// shows the reading is real, so it is evidence for its cause like any other.
+fn is_consistency_rule(rule: &RuleDef) -> bool {
+    rule.entry.cause == GAUGE_ERROR && rule.entry.symptoms.iter().any(|s| s == IMPOSSIBLE_READINGS)
+}
+
 /// The rules for readings that cannot all be true, evaluated whatever the
 /// complaint: a rule that confirms or supports its cause is a problem.
 fn consistency_problems(
@@ -329,7 +340,7 @@ fn consistency_problems(
 ) -> Vec<ConsistencyProblem> {
     rules
         .iter()
-        .filter(|r| r.entry.symptoms.iter().any(|s| s == IMPOSSIBLE_READINGS))
+        .filter(|r| is_consistency_rule(r))
         .filter_map(|r| match r.check.evaluate(values) {
             Evaluated::Condition(true) => Some(ConsistencyProblem {
                 rule: r.entry.id.clone(),
@@ -354,7 +365,7 @@ fn leading_fix(
             .cause
             .clone()
     } else {
-        "gauge-error".to_string()
+        GAUGE_ERROR.to_string()
     };
     let cause = base.causes.get(&cause_id)?;
     Some(FixView {
