@@ -351,8 +351,10 @@ fn consistency_problems(
         .collect()
 }
 
-/// The fix for the leading cause; with readings that disagree, the gauges
-/// come first.
+/// The fix for the leading cause, once the checks make it confirmed or
+/// likely: a fix on a merely possible cause would send someone to open a
+/// line on a hunch, so until then the next measurement is the advice. With
+/// readings that disagree, the gauges come first.
 fn leading_fix(
     base: &RuleBase,
     causes: &[CauseAssessment],
@@ -360,8 +362,13 @@ fn leading_fix(
 ) -> Option<FixView> {
     let cause_id = if consistency.is_empty() {
         causes
-            .iter()
-            .find(|c| c.status == super::CauseStatus::Confirmed || c.status.is_open())?
+            .first()
+            .filter(|c| {
+                matches!(
+                    c.status,
+                    super::CauseStatus::Confirmed | super::CauseStatus::Likely
+                )
+            })?
             .cause
             .clone()
     } else {

@@ -101,4 +101,5 @@ pub fn no_measurement(d: &Diagnosis) -> &'static str {
 }
 
 /// What to say when there is no fix.
-pub const NO_FIX: &str = "none: no cause is left standing; take the next measurement";
+pub const NO_FIX: &str =
+    "none yet: no cause is confirmed or likely; take the next measurement before opening anything";
