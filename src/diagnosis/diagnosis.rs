@@ -211,9 +211,15 @@ fn known_symptoms(base: &RuleBase) -> String {
 fn symptoms(base: &RuleBase, input: &DiagnosisInput) -> Result<Vec<SymptomView>, DiagnosisError> {
     let mut out: Vec<SymptomView> = Vec::new();
     for id in &input.symptoms {
-        let s = base
-            .symptom_by_id(id)
-            .map_err(|e| DiagnosisError::UnknownSymptom(e.to_string()))?;
+        let s = base.symptom_by_id(id).map_err(|e| {
+            let message = e.to_string();
+            // Without a near id, the known ones are the help.
+            DiagnosisError::UnknownSymptom(if message.contains("did you mean") {
+                message
+            } else {
+                format!("{message} (known: {})", known_symptoms(base))
+            })
+        })?;
         if !out.iter().any(|v| v.id == s.entry.id) {
             out.push(SymptomView {
                 id: s.entry.id.clone(),
