@@ -3,3 +3,5 @@ mod calc;
 
 mod cases;
 mod demo;
+mod diagnose;
+mod machine;

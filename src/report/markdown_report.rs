@@ -105,7 +105,7 @@ fn causes(out: &mut String, d: &Diagnosis) {
             wording::status(c),
             wording::percent(c.score)
         );
-        for line in &c.evidence {
+        for line in wording::ordered(c) {
             let _ = writeln!(out, "- {}", wording::evidence(line));
         }
         if let Some(h) = wording::history(c) {

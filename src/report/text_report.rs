@@ -99,7 +99,10 @@ fn causes(out: &mut String, d: &Diagnosis, style: TextStyle) {
     }
     let mut t = sized(table(["#", "cause", "status", "score", "evidence"]), style);
     for (n, c) in d.causes.iter().enumerate() {
-        let mut lines: Vec<String> = c.evidence.iter().map(wording::evidence).collect();
+        let mut lines: Vec<String> = wording::ordered(c)
+            .into_iter()
+            .map(wording::evidence)
+            .collect();
         lines.extend(wording::history(c));
         t.add_row([
             (n + 1).to_string(),

@@ -48,6 +48,15 @@ pub fn status(cause: &CauseAssessment) -> String {
     }
 }
 
+/// A cause's evidence lines, the checks that ran first (in rule order),
+/// then those still waiting for readings: what the numbers say comes before
+/// what is missing.
+pub fn ordered(cause: &CauseAssessment) -> Vec<&EvidenceLine> {
+    let (ran, waiting): (Vec<&EvidenceLine>, Vec<&EvidenceLine>) =
+        cause.evidence.iter().partition(|e| e.effect.is_some());
+    ran.into_iter().chain(waiting).collect()
+}
+
 /// `rule (holds, confirms): text`.
 pub fn evidence(line: &EvidenceLine) -> String {
     let outcome = match line.outcome {
