@@ -4,3 +4,5 @@ mod calc;
 mod cases;
 mod demo;
 mod rules;
+mod diagnose;
+mod machine;

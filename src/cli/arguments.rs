@@ -7,6 +7,8 @@ use clap::{Parser, Subcommand, ValueEnum};
 use super::rules_arguments::RulesArguments;
 
 use super::calc_arguments::CalcArguments;
+use super::diagnose_arguments::DiagnoseArguments;
+use super::machine_arguments::MachineArguments;
 
 /// Offline troubleshooting for pressure-compensated hydraulic flow controls.
 #[derive(Debug, Parser)]
@@ -40,15 +42,17 @@ pub struct Arguments {
 base. An entry with the same id as a built-in one replaces it, and the tool says so."
     )]
     pub rules: Vec<PathBuf>,
-    /// Unit system for printed results.
+    /// Unit system for printed results [default: the machine's own, else metric].
     #[arg(
         long,
         value_enum,
-        default_value = "metric",
         env = "SPOOLSLEUTH_UNITS",
-        global = true
+        global = true,
+        long_help = "Unit system for printed results. When it is not given, a diagnosis or a \
+machine profile is printed in the machine's own units (its profile's `units:`), and \
+everything else in metric."
     )]
-    pub units: UnitsArgument,
+    pub units: Option<UnitsArgument>,
     /// What to do.
     #[command(subcommand)]
     pub command: Command,
@@ -89,6 +93,10 @@ readings, every rule that applies and what its check says, with the numbers.\n\n
 Example: spoolsleuth demo --units us"
     )]
     Demo,
+    /// Diagnose a complaint from readings on a machine or an ad-hoc circuit.
+    Diagnose(Box<DiagnoseArguments>),
+    /// List, show and check machine profiles.
+    Machine(MachineArguments),
     /// Load, lint, list and explain the rule base.
     Rules(RulesArguments),
 }

@@ -15,8 +15,11 @@ pub struct Context {
     pub color: Color,
     /// Extra rule folders.
     pub rule_dirs: Vec<PathBuf>,
-    /// Unit system for printing.
+    /// Unit system for printing: the one given, else metric.
     pub units: UnitSystem,
+    /// The unit system given with `--units` (or its variable), if any: it
+    /// wins over a machine profile's own units.
+    pub units_given: Option<UnitSystem>,
 }
 
 impl Context {
@@ -27,14 +30,22 @@ impl Context {
             ColorArgument::Always => ColorChoice::Always,
             ColorArgument::Never => ColorChoice::Never,
         };
+        let units_given = arguments.units.map(|u| match u {
+            UnitsArgument::Metric => UnitSystem::Metric,
+            UnitsArgument::Us => UnitSystem::Us,
+        });
         Context {
             color: Color::for_stdout(choice),
             rule_dirs: arguments.rules.clone(),
-            units: match arguments.units {
-                UnitsArgument::Metric => UnitSystem::Metric,
-                UnitsArgument::Us => UnitSystem::Us,
-            },
+            units: units_given.unwrap_or_default(),
+            units_given,
         }
+    }
+
+    /// The unit system for a machine whose profile prefers `own`: the one
+    /// given on the command line wins.
+    pub fn units_for(&self, own: UnitSystem) -> UnitSystem {
+        self.units_given.unwrap_or(own)
     }
 
     /// Load the rule base (built-in plus the user's folders).

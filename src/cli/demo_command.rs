@@ -1,13 +1,18 @@
-//! `spoolsleuth demo`: the tool's job on the invented demo plant. Every
-//! number printed is computed here from the demo machines' nameplate data,
-//! a set of demo readings and the built-in rule base.
+//! `spoolsleuth demo`: the tool's whole job on the invented demo plant. The
+//! plant's machines with what their nameplates settle, then a breakdown
+//! call on press-4 diagnosed exactly as `spoolsleuth diagnose` does it, and
+//! the command line that repeats the call by hand. Everything it reads (the
+//! rule base, the machines, the case notes) is compiled into the binary.
 
 use super::context::Context;
+use super::diagnose_command::{diagnose, text_style};
+use crate::diagnosis::DiagnosisInput;
 use crate::error::{Error, ExitStatus};
-use crate::machine::MachineSet;
+use crate::machine::{nameplate_settles, MachineSet};
+use crate::notes::NotesFolder;
 use crate::output::{self, table};
-use crate::rules::{Effect, Evaluated, Readings, RuleBase};
-use crate::units;
+use crate::report::{render, ReportFormat};
+use crate::rules::RuleBase;
 
 /// The demo breakdown call: a machine, the technician's words, and the
 /// readings taken (two operating points, in the machine's own units).
@@ -30,42 +35,28 @@ pub fn execute(context: &Context) -> Result<ExitStatus, Error> {
     let machines = MachineSet::load(None)?;
     let mut out =
         String::from("spoolsleuth demo: Carrow Valley Timber Products (an invented plant)\n\n");
-    out.push_str(&plant_table(&base, &machines)?);
+    out.push_str(&plant_table(context, &base, &machines)?);
     out.push_str(&breakdown_call(context, &base, &machines)?);
-    out.push_str(&format!("\n{}\n", base.closing));
+    out.push_str(&by_hand());
     output::print(&out)?;
     Ok(ExitStatus::Success)
 }
 
 /// One row per machine: its circuit and the derived quantities its
 /// nameplate alone settles.
-fn plant_table(base: &RuleBase, machines: &MachineSet) -> Result<String, Error> {
+fn plant_table(context: &Context, base: &RuleBase, machines: &MachineSet) -> Result<String, Error> {
     let mut t = table(["machine", "circuit", "computed from the nameplate"]);
     for m in &machines.machines {
         let p = &m.profile;
-        let (nameplate, problems) = p.nameplate_values(base);
-        if let Some(problem) = problems.first() {
+        if let Some(problem) = p.problems(base).first() {
             return Err(Error::Input {
                 option: format!("{}: nameplate `{}`", m.file, problem.name),
                 message: problem.message.clone(),
             });
         }
-        let mut readings = Readings::new();
-        for (name, value) in &nameplate {
-            readings.insert(name, *value);
-        }
-        let values = base.values(&readings);
-        let computed: Vec<String> = base
-            .derived
+        let computed: Vec<String> = nameplate_settles(p, base, context.units_for(p.units))
             .iter()
-            .filter_map(|d| {
-                let v = values.get(&d.entry.id)?;
-                Some(format!(
-                    "{}: {}",
-                    d.entry.label,
-                    units::format(*v, d.kind, p.units)
-                ))
-            })
+            .map(|s| format!("{}: {}", s.label, s.shown))
             .collect();
         t.add_row([
             format!("{}\n{}", p.id, p.name),
@@ -73,7 +64,7 @@ fn plant_table(base: &RuleBase, machines: &MachineSet) -> Result<String, Error> 
                 "{} {} {}",
                 p.circuit.name(),
                 p.placement.name(),
-                actuator(p.actuator)
+                p.actuator.name()
             ),
             computed.join("\n"),
         ]);
@@ -81,94 +72,37 @@ fn plant_table(base: &RuleBase, machines: &MachineSet) -> Result<String, Error> 
     Ok(format!("{t}\n"))
 }
 
-fn actuator(a: crate::machine::Actuator) -> &'static str {
-    match a {
-        crate::machine::Actuator::Cylinder => "cylinder",
-        crate::machine::Actuator::Motor => "motor",
-    }
-}
-
-/// The breakdown call: recognise the complaint, evaluate every rule that
-/// applies to the machine, and show what each check says with its numbers.
+/// The breakdown call, diagnosed and rendered as `diagnose` renders it.
 fn breakdown_call(
     context: &Context,
     base: &RuleBase,
     machines: &MachineSet,
 ) -> Result<String, Error> {
-    let machine = &machines.get(MACHINE)?.profile;
-    let system = machine.units;
-    let mut out = format!(
-        "\nBreakdown call on {} ({}): \"{COMPLAINT}\"\n",
-        machine.id, machine.name
-    );
-    let symptoms: Vec<String> = base
-        .recognise(COMPLAINT)
+    let machine = machines.get(MACHINE)?.profile.clone();
+    let mut input = DiagnosisInput::for_machine(machine);
+    input.units = context.units_for(input.units);
+    input.complaint = Some(COMPLAINT.to_string());
+    input.readings = READINGS
         .iter()
-        .map(|s| s.entry.id.clone())
+        .map(|(n, v)| ((*n).to_string(), (*v).to_string()))
         .collect();
-    out.push_str(&format!("Recognised symptoms: {}\n", symptoms.join(", ")));
-    let mut readings = Readings::new();
-    let (nameplate, _) = machine.nameplate_values(base);
-    for (name, value) in &nameplate {
-        readings.insert(name, *value);
-    }
-    let mut shown = table(["reading", "value"]);
-    for (name, text) in READINGS {
-        readings
-            .insert_text(base, name, text)
-            .map_err(|e| Error::Input {
-                option: e.name.clone(),
-                message: e.message,
-            })?;
-        let kind = base
-            .quantity_for_reading(name)
-            .map(|q| q.kind)
-            .map_err(|m| Error::Input {
-                option: (*name).to_string(),
-                message: m,
-            })?;
-        let value = readings
-            .get(name)
-            .unwrap_or(units::Quantity::number(f64::NAN));
-        shown.add_row([(*name).to_string(), units::format(value, kind, system)]);
-    }
-    out.push_str(&format!("{shown}\n"));
-    let values = base.values(&readings);
-    let mut checks = table(["rule", "cause", "what the numbers say", "evidence"]);
-    for rule in base.rules.iter().filter(|r| {
-        r.applies_to(machine.circuit, machine.placement)
-            && r.entry.symptoms.iter().any(|s| symptoms.contains(s))
-    }) {
-        let (verdict, evidence) = match rule.check.evaluate(&values) {
-            Evaluated::Condition(holds) => {
-                let effect = if holds {
-                    rule.entry.when_true
-                } else {
-                    rule.entry.when_false
-                };
-                (effect_words(effect), rule.evidence.render(&values, system))
-            }
-            Evaluated::Missing(names) => (
-                "not yet tested".to_string(),
-                format!("needs {}", names.join(", ")),
-            ),
-            Evaluated::Quantity(_) | Evaluated::Failed(_) => continue,
-        };
-        let verdict = match verdict.as_str() {
-            "confirms" => context.color.red(&verdict),
-            _ => verdict,
-        };
-        checks.add_row([
-            rule.entry.id.clone(),
-            rule.entry.cause.clone(),
-            verdict,
-            evidence,
-        ]);
-    }
-    out.push_str(&format!("{checks}\n"));
-    Ok(out)
+    let diagnosis = diagnose(base, input, NotesFolder::Embedded, None)?;
+    let report = render(
+        &diagnosis,
+        ReportFormat::Table,
+        text_style(context, ReportFormat::Table),
+    )?;
+    Ok(format!(
+        "\nA breakdown call on {MACHINE}: the technician's words and readings, diagnosed\n\n{report}"
+    ))
 }
 
-fn effect_words(effect: Effect) -> String {
-    effect.name().replace('-', " ")
+/// The command line that runs the same call by hand.
+fn by_hand() -> String {
+    let mut line =
+        format!("spoolsleuth diagnose --machine {MACHINE} \\\n  --complaint \"{COMPLAINT}\"");
+    for (name, value) in READINGS {
+        line.push_str(&format!(" \\\n  --reading {name}=\"{value}\""));
+    }
+    format!("\nTo run the same call by hand:\n\n{line}\n")
 }

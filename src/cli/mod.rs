@@ -10,6 +10,10 @@ mod cases_arguments;
 mod cases_command;
 mod context;
 mod demo_command;
+mod diagnose_arguments;
+mod diagnose_command;
+mod machine_arguments;
+mod machine_command;
 mod rules_arguments;
 mod rules_command;
 
@@ -27,6 +31,8 @@ pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
         Command::Calc(calc) => calc_command::execute(&context, *calc),
         Command::Cases(cases) => cases_command::execute(*cases),
         Command::Demo => demo_command::execute(&context),
+        Command::Diagnose(args) => diagnose_command::execute(&context, *args),
+        Command::Machine(args) => machine_command::execute(&context, args),
         Command::Rules(args) => rules_command::execute(&context, args.action),
     }
 }

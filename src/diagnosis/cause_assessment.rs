@@ -171,7 +171,10 @@ fn assess(
     } else {
         CauseStatus::Unlikely
     };
-    let on_hold = readings_disagree && status == CauseStatus::Confirmed;
+    // Readings that cannot all be true blame no component: neither a
+    // confirmed nor a likely cause stands until the gauges agree.
+    let on_hold =
+        readings_disagree && matches!(status, CauseStatus::Confirmed | CauseStatus::Likely);
     if on_hold {
         status = CauseStatus::Possible;
     }

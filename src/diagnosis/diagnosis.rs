@@ -9,8 +9,8 @@ use serde::Serialize;
 use super::cause_assessment::{rank, CauseAssessment};
 use super::next_measurement::{choose, NextMeasurement};
 use super::reading_view::{read_all, ReadingView};
-use super::{DiagnosisError, DiagnosisInput};
-use crate::rules::{Circuit, Evaluated, Placement, Readings, RuleBase, RuleDef, Values};
+use super::{CauseHistory, DiagnosisError, DiagnosisInput};
+use crate::rules::{Actuator, Circuit, Evaluated, Placement, Readings, RuleBase, RuleDef, Values};
 use crate::units::UnitSystem;
 
 /// The symptom that marks readings which cannot all be true.
@@ -95,6 +95,8 @@ pub struct Diagnosis {
     pub schema_version: u32,
     /// The machine, if named.
     pub machine: Option<MachineView>,
+    /// What drives the load, when known.
+    pub actuator: Option<Actuator>,
     /// Circuit type.
     pub circuit: Circuit,
     /// Valve placement.
@@ -143,8 +145,16 @@ impl Diagnosis {
         let evaluated: Vec<(&RuleDef, Evaluated)> = rules
             .iter()
             .filter(|r| r.entry.symptoms.iter().any(|s| ids.contains(s.as_str())))
-            .filter(|r| !r.entry.symptoms.iter().any(|s| s == IMPOSSIBLE_READINGS))
+            .filter(|r| !is_consistency_rule(r))
             .map(|r| (*r, r.check.evaluate(&values)))
+            .collect();
+        // Only the history of the symptoms at hand counts: a cause found
+        // for another complaint on this machine says nothing about this one.
+        let history: Vec<CauseHistory> = input
+            .history
+            .iter()
+            .filter(|h| ids.contains(h.symptom.as_str()))
+            .cloned()
             .collect();
         let causes = rank(
             base,
@@ -152,7 +162,7 @@ impl Diagnosis {
             &values,
             input.units,
             !consistency.is_empty(),
-            &input.history,
+            &history,
         );
         let next_measurement = choose(base, &causes, &evaluated, &values);
         let fix = leading_fix(base, &causes, &consistency);
@@ -163,6 +173,7 @@ impl Diagnosis {
                 id: m.id.clone(),
                 name: m.name.clone(),
             }),
+            actuator: input.actuator,
             circuit: input.circuit,
             placement: input.placement,
             units: input.units,
@@ -200,9 +211,15 @@ fn known_symptoms(base: &RuleBase) -> String {
 fn symptoms(base: &RuleBase, input: &DiagnosisInput) -> Result<Vec<SymptomView>, DiagnosisError> {
     let mut out: Vec<SymptomView> = Vec::new();
     for id in &input.symptoms {
-        let s = base
-            .symptom_by_id(id)
-            .map_err(|e| DiagnosisError::UnknownSymptom(e.to_string()))?;
+        let s = base.symptom_by_id(id).map_err(|e| {
+            let message = e.to_string();
+            // Without a near id, the known ones are the help.
+            DiagnosisError::UnknownSymptom(if message.contains("did you mean") {
+                message
+            } else {
+                format!("{message} (known: {})", known_symptoms(base))
+            })
+        })?;
         if !out.iter().any(|v| v.id == s.entry.id) {
             out.push(SymptomView {
                 id: s.entry.id.clone(),
@@ -309,6 +326,17 @@ fn gather_readings(
     Ok((readings, problems, warnings))
 }
 
+/// The cause that readings which cannot all be true point to.
+const GAUGE_ERROR: &str = "gauge-error";
+
+/// A rule that tests whether the readings can all be true: filed under
+/// impossible readings and blaming a gauge. A rule filed there that blames a
+/// component (a rod reading above the relief that the area ratio explains)
+/// shows the reading is real, so it is evidence for its cause like any other.
+fn is_consistency_rule(rule: &RuleDef) -> bool {
+    rule.entry.cause == GAUGE_ERROR && rule.entry.symptoms.iter().any(|s| s == IMPOSSIBLE_READINGS)
+}
+
 /// The rules for readings that cannot all be true, evaluated whatever the
 /// complaint: a rule that confirms or supports its cause is a problem.
 fn consistency_problems(
@@ -318,7 +346,7 @@ fn consistency_problems(
 ) -> Vec<ConsistencyProblem> {
     rules
         .iter()
-        .filter(|r| r.entry.symptoms.iter().any(|s| s == IMPOSSIBLE_READINGS))
+        .filter(|r| is_consistency_rule(r))
         .filter_map(|r| match r.check.evaluate(values) {
             Evaluated::Condition(true) => Some(ConsistencyProblem {
                 rule: r.entry.id.clone(),
@@ -329,8 +357,10 @@ fn consistency_problems(
         .collect()
 }
 
-/// The fix for the leading cause; with readings that disagree, the gauges
-/// come first.
+/// The fix for the leading cause, once the checks make it confirmed or
+/// likely: a fix on a merely possible cause would send someone to open a
+/// line on a hunch, so until then the next measurement is the advice. With
+/// readings that disagree, the gauges come first.
 fn leading_fix(
     base: &RuleBase,
     causes: &[CauseAssessment],
@@ -338,12 +368,17 @@ fn leading_fix(
 ) -> Option<FixView> {
     let cause_id = if consistency.is_empty() {
         causes
-            .iter()
-            .find(|c| c.status == super::CauseStatus::Confirmed || c.status.is_open())?
+            .first()
+            .filter(|c| {
+                matches!(
+                    c.status,
+                    super::CauseStatus::Confirmed | super::CauseStatus::Likely
+                )
+            })?
             .cause
             .clone()
     } else {
-        "gauge-error".to_string()
+        GAUGE_ERROR.to_string()
     };
     let cause = base.causes.get(&cause_id)?;
     Some(FixView {

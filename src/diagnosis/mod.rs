@@ -9,6 +9,7 @@ mod diagnosis;
 mod diagnosis_error;
 mod diagnosis_input;
 mod next_measurement;
+mod reading_input;
 mod reading_view;
 
 pub use cause_assessment::{CauseAssessment, EvidenceLine};
@@ -20,4 +21,5 @@ pub use diagnosis::{
 pub use diagnosis_error::DiagnosisError;
 pub use diagnosis_input::{CauseHistory, DiagnosisInput};
 pub use next_measurement::NextMeasurement;
+pub use reading_input::{parse_reading_argument, parse_readings_file};
 pub use reading_view::ReadingView;

@@ -5,7 +5,7 @@ use std::collections::BTreeMap;
 use serde::Deserialize;
 
 pub use crate::rules::Actuator;
-use crate::rules::{Circuit, Placement, RuleBase, Scalar};
+use crate::rules::{Circuit, Placement, QuantitySource, RuleBase, Scalar};
 use crate::units::{Quantity, UnitSystem};
 
 /// One machine, as written in its YAML file.
@@ -91,5 +91,41 @@ impl MachineProfile {
             }
         }
         (values, problems)
+    }
+
+    /// Every problem with the profile against the rule base's vocabulary:
+    /// nameplate values that do not parse or fit their quantity, gauge
+    /// points that are not quantities, gauge readings given as nameplate
+    /// data, and quantities that belong to the other kind of actuator.
+    pub fn problems(&self, base: &RuleBase) -> Vec<NameplateProblem> {
+        let (_, mut problems) = self.nameplate_values(base);
+        for name in self.nameplate.keys() {
+            let Some(q) = base.quantities.get(name) else {
+                continue;
+            };
+            if q.entry.source == QuantitySource::Gauge {
+                problems.push(NameplateProblem {
+                    name: name.clone(),
+                    message: format!(
+                        "`{name}` is a gauge reading, not nameplate data: give it as a reading \
+                         (--reading {name}@loaded=...)"
+                    ),
+                });
+            }
+        }
+        for name in self.nameplate.keys().chain(&self.gauges) {
+            let owner = base.quantities.get(name).and_then(|q| q.entry.actuator);
+            if let Some(owner) = owner.filter(|o| *o != self.actuator) {
+                problems.push(NameplateProblem {
+                    name: name.clone(),
+                    message: format!(
+                        "`{name}` belongs to a {} but this machine drives a {}",
+                        owner.name(),
+                        self.actuator.name()
+                    ),
+                });
+            }
+        }
+        problems
     }
 }
