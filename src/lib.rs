@@ -17,6 +17,7 @@ pub mod machine;
 pub mod notes;
 pub mod output;
 pub mod physics;
+pub mod report;
 pub mod rules;
 pub mod search;
 pub mod suggest;
