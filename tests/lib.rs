@@ -2,4 +2,6 @@
 mod calc;
 
 mod cases;
+mod chart;
 mod demo;
+mod report_render;

@@ -77,6 +77,9 @@ ul.tree ul { border-left: 2px solid #d4dbe3; margin-left: 6px; padding-left: 14p
   .signoff { grid-template-columns: 1fr; }
   dl.facts { grid-template-columns: 1fr; }
   dl.facts dd { margin-bottom: 4px; }
+  table { font-size: 0.85rem; }
+  th, td { padding: 4px 5px; }
+  td code { word-break: break-all; }
 }
 @page { margin: 14mm 12mm; }
 @media print {
@@ -199,19 +202,30 @@ fn readings(html: &mut String, d: &Diagnosis) {
     if d.readings.is_empty() {
         html.push_str("<p>No readings were given.</p>\n");
     } else {
+        // A notes column only when a reading has a warning: it keeps the table
+        // narrow enough for a phone otherwise.
+        let notes = d.readings.iter().any(|r| !r.warnings.is_empty());
         html.push_str(
-            "<div class=\"scroll\"><table>\n<thead><tr><th>reading</th><th>what</th>\
-<th>value</th><th>notes</th></tr></thead>\n<tbody>\n",
+            "<div class=\"scroll\"><table>\n<thead><tr><th>reading</th><th>what</th><th>value</th>",
         );
+        html.push_str(if notes { "<th>notes</th>" } else { "" });
+        html.push_str("</tr></thead>\n<tbody>\n");
         for r in &d.readings {
-            let _ = writeln!(
+            let _ = write!(
                 html,
-                "<tr><td><code>{}</code></td><td>{}</td><td class=\"value\">{}</td><td class=\"warn\">{}</td></tr>",
+                "<tr><td><code>{}</code></td><td>{}</td><td class=\"value\">{}</td>",
                 escape(&r.name),
                 escape(&r.label),
                 escape(&r.shown),
-                escape(&r.warnings.join("; "))
             );
+            if notes {
+                let _ = write!(
+                    html,
+                    "<td class=\"warn\">{}</td>",
+                    escape(&r.warnings.join("; "))
+                );
+            }
+            html.push_str("</tr>\n");
         }
         html.push_str("</tbody>\n</table></div>\n");
     }
