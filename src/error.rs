@@ -45,6 +45,9 @@ impl From<ExitStatus> for ExitCode {
 /// Any error the library reports to the user.
 #[derive(Debug, thiserror::Error)]
 pub enum Error {
+    /// The valve characteristic could not be computed from the inputs.
+    #[error(transparent)]
+    Chart(#[from] crate::chart::ChartError),
     /// A diagnosis could not start from the input given.
     #[error(transparent)]
     Diagnosis(#[from] crate::diagnosis::DiagnosisError),

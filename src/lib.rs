@@ -7,6 +7,7 @@
 //! command-line glue in `cli` turns arguments into calls and reports. See
 //! DEVELOPERS.md for the architecture.
 
+pub mod chart;
 pub mod cli;
 pub mod diagnosis;
 pub mod error;

@@ -1,8 +1,9 @@
 //! Integration tests: each module runs the real binary on data the test owns.
 mod calc;
-
 mod cases;
+mod chart;
 mod demo;
-mod rules;
 mod diagnose;
 mod machine;
+mod report_render;
+mod rules;

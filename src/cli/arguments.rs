@@ -85,6 +85,8 @@ pub enum Command {
     Calc(Box<CalcArguments>),
     /// Past case notes: add, search, show, stats.
     Cases(Box<super::cases_arguments::CasesArguments>),
+    /// Draw the valve characteristic with the measured points, as SVG.
+    Chart(Box<super::chart_arguments::ChartArguments>),
     /// Show the tool's job on the invented demo plant.
     #[command(
         long_about = "Show the tool's job on the invented demo plant: the six demo \

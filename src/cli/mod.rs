@@ -8,6 +8,8 @@ mod calc_command;
 mod calc_report;
 mod cases_arguments;
 mod cases_command;
+mod chart_arguments;
+mod chart_command;
 mod context;
 mod demo_command;
 mod diagnose_arguments;
@@ -30,6 +32,7 @@ pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
     match arguments.command {
         Command::Calc(calc) => calc_command::execute(&context, *calc),
         Command::Cases(cases) => cases_command::execute(*cases),
+        Command::Chart(chart) => chart_command::execute(&context, *chart),
         Command::Demo => demo_command::execute(&context),
         Command::Diagnose(args) => diagnose_command::execute(&context, *args),
         Command::Machine(args) => machine_command::execute(&context, args),

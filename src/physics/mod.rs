@@ -71,6 +71,7 @@ pub use power::{
     shaft_power, temperature_rise_from_heat, throttling_heat, throttling_temperature_rise,
     torque_from_power, HeatBudget,
 };
+pub(crate) use root::bisect;
 pub use viscosity::{dynamic_viscosity, kinematic_viscosity, WaltherLine};
 pub use viscosity_grade::{
     grade_of_viscosity, viscosity_grade, ViscosityGrade, ISO_VISCOSITY_GRADES,
