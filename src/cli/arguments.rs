@@ -40,15 +40,14 @@ pub struct Arguments {
 base. An entry with the same id as a built-in one replaces it, and the tool says so."
     )]
     pub rules: Vec<PathBuf>,
-    /// Unit system for printed results.
+    /// Unit system for printed results [default: the machine's own, else metric].
     #[arg(
         long,
         value_enum,
-        default_value = "metric",
         env = "SPOOLSLEUTH_UNITS",
         global = true
     )]
-    pub units: UnitsArgument,
+    pub units: Option<UnitsArgument>,
     /// What to do.
     #[command(subcommand)]
     pub command: Command,
@@ -89,6 +88,8 @@ readings, every rule that applies and what its check says, with the numbers.\n\n
 Example: spoolsleuth demo --units us"
     )]
     Demo,
+    /// Walk through a diagnosis one safe step at a time.
+    Guide(super::guide_arguments::GuideArguments),
     /// Load, lint, list and explain the rule base.
     Rules(RulesArguments),
 }

@@ -15,8 +15,11 @@ pub struct Context {
     pub color: Color,
     /// Extra rule folders.
     pub rule_dirs: Vec<PathBuf>,
-    /// Unit system for printing.
+    /// Unit system for printing (the one given, else metric).
     pub units: UnitSystem,
+    /// The unit system given with `--units` or the environment, if any; a
+    /// machine's own units apply otherwise.
+    pub units_given: Option<UnitSystem>,
 }
 
 impl Context {
@@ -27,13 +30,15 @@ impl Context {
             ColorArgument::Always => ColorChoice::Always,
             ColorArgument::Never => ColorChoice::Never,
         };
+        let units_given = arguments.units.map(|u| match u {
+            UnitsArgument::Metric => UnitSystem::Metric,
+            UnitsArgument::Us => UnitSystem::Us,
+        });
         Context {
             color: Color::for_stdout(choice),
             rule_dirs: arguments.rules.clone(),
-            units: match arguments.units {
-                UnitsArgument::Metric => UnitSystem::Metric,
-                UnitsArgument::Us => UnitSystem::Us,
-            },
+            units: units_given.unwrap_or_default(),
+            units_given,
         }
     }
 

@@ -9,6 +9,8 @@ mod calc_report;
 mod cases_arguments;
 mod cases_command;
 mod context;
+mod guide_arguments;
+mod guide_command;
 mod demo_command;
 mod rules_arguments;
 mod rules_command;
@@ -27,6 +29,7 @@ pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
         Command::Calc(calc) => calc_command::execute(&context, *calc),
         Command::Cases(cases) => cases_command::execute(*cases),
         Command::Demo => demo_command::execute(&context),
+        Command::Guide(args) => guide_command::execute(&context, args),
         Command::Rules(args) => rules_command::execute(&context, args.action),
     }
 }
