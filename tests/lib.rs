@@ -3,3 +3,4 @@ mod calc;
 
 mod cases;
 mod demo;
+mod guide;

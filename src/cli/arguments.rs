@@ -41,12 +41,7 @@ base. An entry with the same id as a built-in one replaces it, and the tool says
     )]
     pub rules: Vec<PathBuf>,
     /// Unit system for printed results [default: the machine's own, else metric].
-    #[arg(
-        long,
-        value_enum,
-        env = "SPOOLSLEUTH_UNITS",
-        global = true
-    )]
+    #[arg(long, value_enum, env = "SPOOLSLEUTH_UNITS", global = true)]
     pub units: Option<UnitsArgument>,
     /// What to do.
     #[command(subcommand)]

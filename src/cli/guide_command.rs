@@ -15,9 +15,18 @@ use crate::output;
 /// Run the walk.
 pub fn execute(context: &Context, arguments: GuideArguments) -> Result<ExitStatus, Error> {
     let base = context.rule_base()?;
-    let machines = MachineSet::load(arguments.cases.as_ref().map(|c| c.join("machines")).as_deref())?;
+    let machines = MachineSet::load(
+        arguments
+            .cases
+            .as_ref()
+            .map(|c| c.join("machines"))
+            .as_deref(),
+    )?;
     let mut guide = Guide::new(&base, &machines, context.units_given);
-    let session_path = arguments.session.clone().unwrap_or_else(GuideSession::default_path);
+    let session_path = arguments
+        .session
+        .clone()
+        .unwrap_or_else(GuideSession::default_path);
     let mut session = if arguments.resume {
         resume(&mut guide, &session_path)?
     } else {
@@ -26,12 +35,12 @@ pub fn execute(context: &Context, arguments: GuideArguments) -> Result<ExitStatu
     watch_interrupt(&session_path);
     let interactive = arguments.answers.is_none() && std::io::stdin().is_terminal();
     let mut input: Box<dyn BufRead> = match &arguments.answers {
-        Some(path) => Box::new(std::io::BufReader::new(std::fs::File::open(path).map_err(|e| {
-            Error::Input {
+        Some(path) => Box::new(std::io::BufReader::new(std::fs::File::open(path).map_err(
+            |e| Error::Input {
                 option: "--answers".into(),
                 message: format!("{}: {e}", path.display()),
-            }
-        })?)),
+            },
+        )?)),
         None => Box::new(std::io::stdin().lock()),
     };
     let mut machine_option = arguments.machine.clone();
@@ -86,7 +95,11 @@ fn resume(guide: &mut Guide<'_>, path: &Path) -> Result<GuideSession, Error> {
             ),
         })?;
     }
-    eprintln!("resumed after {} answers from {}", session.answers.len(), path.display());
+    eprintln!(
+        "resumed after {} answers from {}",
+        session.answers.len(),
+        path.display()
+    );
     Ok(session)
 }
 
@@ -136,16 +149,26 @@ fn watch_interrupt(path: &Path) {
 
 /// Save the walk as a case note, or print it when there is no folder.
 fn save_note(guide: &Guide<'_>, initials: &str, cases: Option<&Path>) -> Result<(), Error> {
-    let Some(d) = guide.diagnosis() else { return Ok(()) };
+    let Some(d) = guide.diagnosis() else {
+        return Ok(());
+    };
     let leading = d.leading();
     let draft = NoteDraft {
         cause: leading.map(|c| c.cause.clone()),
         date: None,
         downtime: None,
         fix: d.fix.as_ref().map(|f| f.text.clone()),
-        machine: Some(d.machine.as_ref().map_or("unknown-machine".to_string(), |m| m.id.clone())),
+        machine: Some(
+            d.machine
+                .as_ref()
+                .map_or("unknown-machine".to_string(), |m| m.id.clone()),
+        ),
         parts: Vec::new(),
-        readings: d.readings.iter().map(|r| format!("{}: {}", r.name, r.shown)).collect(),
+        readings: d
+            .readings
+            .iter()
+            .map(|r| format!("{}: {}", r.name, r.shown))
+            .collect(),
         symptoms: d.symptoms.iter().map(|s| s.id.clone()).collect(),
         technician: Some(initials.to_string()),
         text: leading.map(|c| {

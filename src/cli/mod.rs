@@ -9,9 +9,9 @@ mod calc_report;
 mod cases_arguments;
 mod cases_command;
 mod context;
+mod demo_command;
 mod guide_arguments;
 mod guide_command;
-mod demo_command;
 mod rules_arguments;
 mod rules_command;
 

@@ -221,11 +221,16 @@ impl<'a> Guide<'a> {
             Stage::Reading => self.take_reading(text),
             Stage::SaveNote => {
                 self.save_note = yes_no(text)?;
-                self.stage = if self.save_note { Stage::Initials } else { Stage::Done };
+                self.stage = if self.save_note {
+                    Stage::Initials
+                } else {
+                    Stage::Done
+                };
                 Ok(Step::recorded(Vec::new()))
             }
             Stage::Initials => {
-                let ok = (1..=4).contains(&text.len()) && text.chars().all(|c| c.is_ascii_alphabetic());
+                let ok =
+                    (1..=4).contains(&text.len()) && text.chars().all(|c| c.is_ascii_alphabetic());
                 if !ok {
                     return Err("initials are one to four letters, e.g. JT".into());
                 }
@@ -242,7 +247,12 @@ impl<'a> Guide<'a> {
             return Err("tell me what you see or hear, in any words".into());
         }
         self.complaint = text.to_string();
-        self.symptoms = self.base.recognise(text).iter().map(|s| s.entry.id.clone()).collect();
+        self.symptoms = self
+            .base
+            .recognise(text)
+            .iter()
+            .map(|s| s.entry.id.clone())
+            .collect();
         self.stage = if self.symptoms.is_empty() {
             Stage::PickSymptoms
         } else {
@@ -258,15 +268,16 @@ impl<'a> Guide<'a> {
 
     fn take_symptom_numbers(&mut self, text: &str) -> Result<Step, String> {
         let mut picked = Vec::new();
-        for part in text.split(|c| c == ',' || c == ' ').filter(|p| !p.is_empty()) {
+        for part in text
+            .split([',', ' '])
+            .filter(|p| !p.is_empty())
+        {
             let n: usize = part
                 .parse()
                 .map_err(|_| format!("`{part}` is not a number from the list"))?;
-            let s = self
-                .base
-                .symptoms
-                .get(n.wrapping_sub(1))
-                .ok_or_else(|| format!("{n} is not on the list (1 to {})", self.base.symptoms.len()))?;
+            let s = self.base.symptoms.get(n.wrapping_sub(1)).ok_or_else(|| {
+                format!("{n} is not on the list (1 to {})", self.base.symptoms.len())
+            })?;
             if !picked.contains(&s.entry.id) {
                 picked.push(s.entry.id.clone());
             }
@@ -288,7 +299,12 @@ impl<'a> Guide<'a> {
             self.stage = Stage::Circuit;
             return Ok(Step::recorded(Vec::new()));
         }
-        let machine = self.machines.get(text).map_err(|e| e.to_string())?.profile.clone();
+        let machine = self
+            .machines
+            .get(text)
+            .map_err(|e| e.to_string())?
+            .profile
+            .clone();
         self.circuit = Some(machine.circuit);
         self.placement = Some(machine.placement);
         self.actuator = Some(machine.actuator);
@@ -413,7 +429,8 @@ impl<'a> Guide<'a> {
             (Stage::Caution | Stage::Reading, Some(next)) => format!("Why this step: {}", next.why),
             (Stage::Complaint, _) => "Why: your words tell me which symptoms to test first.".into(),
             (Stage::Machine, _) => {
-                "Why: the machine's nameplate (bore, displacement, settings) goes into every check.".into()
+                "Why: the machine's nameplate (bore, displacement, settings) goes into every check."
+                    .into()
             }
             _ => "Why: each answer narrows down which causes the numbers can still support.".into(),
         }
@@ -470,14 +487,21 @@ impl<'a> Guide<'a> {
 
 /// Lines saying which causes changed standing.
 fn changes(before: Option<&Diagnosis>, after: &Diagnosis) -> Vec<String> {
-    let Some(before) = before else { return Vec::new() };
+    let Some(before) = before else {
+        return Vec::new();
+    };
     after
         .causes
         .iter()
         .filter_map(|c| {
             let old = before.causes.iter().find(|b| b.cause == c.cause)?;
             (old.status != c.status).then(|| {
-                format!("Changed: {} — {} → {}", c.label, old.status.words(), c.status.words())
+                format!(
+                    "Changed: {} — {} → {}",
+                    c.label,
+                    old.status.words(),
+                    c.status.words()
+                )
             })
         })
         .collect()
@@ -491,7 +515,14 @@ fn standings(d: &Diagnosis) -> Vec<String> {
             .iter()
             .filter(|c| c.status != CauseStatus::RuledOut)
             .take(4)
-            .map(|c| format!("  {} — {} ({:.0} %)", c.label, c.status.words(), c.score * 100.0)),
+            .map(|c| {
+                format!(
+                    "  {} — {} ({:.0} %)",
+                    c.label,
+                    c.status.words(),
+                    c.score * 100.0
+                )
+            }),
     );
     lines
 }
@@ -573,4 +604,5 @@ const CIRCUIT_MENU: [Circuit; 4] = [
 ];
 
 /// The placements in the order the guide lists them.
-const PLACEMENT_MENU: [Placement; 3] = [Placement::MeterIn, Placement::MeterOut, Placement::BleedOff];
+const PLACEMENT_MENU: [Placement; 3] =
+    [Placement::MeterIn, Placement::MeterOut, Placement::BleedOff];

@@ -55,10 +55,11 @@ impl GuideSession {
             path: path.display().to_string(),
             source,
         })?;
-        let session: GuideSession = serde_json::from_str(&text).map_err(|e| SessionError::Invalid {
-            path: path.display().to_string(),
-            message: e.to_string(),
-        })?;
+        let session: GuideSession =
+            serde_json::from_str(&text).map_err(|e| SessionError::Invalid {
+                path: path.display().to_string(),
+                message: e.to_string(),
+            })?;
         if session.version != VERSION {
             return Err(SessionError::Invalid {
                 path: path.display().to_string(),
@@ -74,7 +75,10 @@ impl GuideSession {
             path: path.display().to_string(),
             source,
         };
-        let dir = path.parent().filter(|p| !p.as_os_str().is_empty()).unwrap_or(Path::new("."));
+        let dir = path
+            .parent()
+            .filter(|p| !p.as_os_str().is_empty())
+            .unwrap_or(Path::new("."));
         std::fs::create_dir_all(dir).map_err(io)?;
         let mut tmp = tempfile::NamedTempFile::new_in(dir).map_err(io)?;
         let text = serde_json::to_string_pretty(self).expect("a session always serialises");
