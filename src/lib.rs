@@ -12,6 +12,7 @@ pub mod cli;
 pub mod diagnosis;
 pub mod error;
 pub mod formula;
+pub mod guide;
 pub mod index;
 pub mod machine;
 pub mod notes;

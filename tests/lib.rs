@@ -4,6 +4,7 @@ mod cases;
 mod chart;
 mod demo;
 mod diagnose;
+mod guide;
 mod machine;
 mod report_render;
 mod rules;

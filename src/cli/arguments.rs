@@ -99,6 +99,8 @@ Example: spoolsleuth demo --units us"
     Diagnose(Box<DiagnoseArguments>),
     /// List, show and check machine profiles.
     Machine(MachineArguments),
+    /// Walk through a diagnosis one safe step at a time.
+    Guide(super::guide_arguments::GuideArguments),
     /// Load, lint, list and explain the rule base.
     Rules(RulesArguments),
 }

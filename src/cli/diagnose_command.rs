@@ -169,6 +169,7 @@ fn ad_hoc(context: &Context, arguments: &DiagnoseArguments) -> Result<DiagnosisI
             PlacementArgument::MeterOut => Placement::MeterOut,
         },
         readings: Vec::new(),
+        skip: Vec::new(),
         symptoms: Vec::new(),
         units: context.units_given.unwrap_or(UnitSystem::Metric),
     })

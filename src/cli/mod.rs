@@ -14,6 +14,8 @@ mod context;
 mod demo_command;
 mod diagnose_arguments;
 mod diagnose_command;
+mod guide_arguments;
+mod guide_command;
 mod machine_arguments;
 mod machine_command;
 mod rules_arguments;
@@ -36,6 +38,7 @@ pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
         Command::Demo => demo_command::execute(&context),
         Command::Diagnose(args) => diagnose_command::execute(&context, *args),
         Command::Machine(args) => machine_command::execute(&context, args),
+        Command::Guide(args) => guide_command::execute(&context, args),
         Command::Rules(args) => rules_command::execute(&context, args.action),
     }
 }

@@ -164,7 +164,7 @@ impl Diagnosis {
             !consistency.is_empty(),
             &history,
         );
-        let next_measurement = choose(base, &causes, &evaluated, &values);
+        let next_measurement = choose(base, &causes, &evaluated, &values, &input.skip);
         let fix = leading_fix(base, &causes, &consistency);
         let cautions = cautions(base, fix.as_ref(), next_measurement.as_ref());
         Ok(Diagnosis {

@@ -24,6 +24,9 @@ pub struct DiagnosisInput {
     /// Readings as given, `name` or `name@point` with the text typed, in
     /// the order given (a name may appear twice; the two are compared).
     pub readings: Vec<(String, String)>,
+    /// Readings the technician cannot take this time: never proposed as
+    /// the next measurement.
+    pub skip: Vec<String>,
     /// Symptom ids named outright.
     pub symptoms: Vec<String>,
     /// How results are printed.
@@ -40,6 +43,7 @@ impl DiagnosisInput {
             history: Vec::new(),
             placement: machine.placement,
             readings: Vec::new(),
+            skip: Vec::new(),
             symptoms: Vec::new(),
             units: machine.units,
             machine: Some(machine),

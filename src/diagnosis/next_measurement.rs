@@ -38,6 +38,7 @@ pub fn choose(
     causes: &[CauseAssessment],
     evaluated: &[(&RuleDef, Evaluated)],
     values: &Values,
+    skip: &[String],
 ) -> Option<NextMeasurement> {
     let weight: BTreeMap<&str, f64> = causes
         .iter()
@@ -54,6 +55,10 @@ pub fn choose(
             continue;
         };
         let needed = readings_needed(base, names, values);
+        // A check waiting on a reading that cannot be taken cannot be settled.
+        if needed.iter().any(|r| skip.contains(r)) {
+            continue;
+        }
         if needed.is_empty() {
             continue;
         }

@@ -1120,3 +1120,23 @@ mod tests {
         );
     }
 }
+
+#[cfg(test)]
+mod vocabulary_tests {
+    use super::RuleBase;
+
+    /// Case notes validate their symptom and cause ids against lists of
+    /// their own; they must name exactly what the built-in rule base does.
+    #[test]
+    fn the_note_vocabulary_matches_the_rule_base() {
+        let base = RuleBase::load(&[]).unwrap();
+        let symptoms: Vec<&str> = {
+            let mut v: Vec<&str> = base.symptoms.iter().map(|s| s.entry.id.as_str()).collect();
+            v.sort_unstable();
+            v
+        };
+        assert_eq!(symptoms, crate::notes::SYMPTOM_IDS);
+        let causes: Vec<&str> = base.causes.keys().map(String::as_str).collect();
+        assert_eq!(causes, crate::notes::CAUSE_IDS);
+    }
+}
