@@ -1313,3 +1313,101 @@ const MARKDOWN_REPORT: &str = r#"# Diagnosis: ad-hoc circuit (no machine profile
 
 *spoolsleuth supports, and does not replace, local codes, the machine maker's instructions and licensed practice; when they differ, follow them.*
 "#;
+
+mod report_files {
+    use assert_cmd::Command;
+
+    const CALL: &[&str] = &[
+        "diagnose",
+        "--machine",
+        "press-4",
+        "--complaint",
+        "bogs down under load",
+        "--reading",
+        "supply_pressure@unloaded=150 bar",
+        "--reading",
+        "inter_pressure@unloaded=38 bar",
+        "--reading",
+        "load_pressure@unloaded=30 bar",
+        "--reading",
+        "flow@unloaded=20 L/min",
+        "--reading",
+        "supply_pressure@loaded=185 bar",
+        "--reading",
+        "inter_pressure@loaded=143.5 bar",
+        "--reading",
+        "load_pressure@loaded=140 bar",
+        "--reading",
+        "flow@loaded=14.2 L/min",
+    ];
+
+    fn run(dir: &std::path::Path, report: &str) -> std::process::Output {
+        Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
+            .current_dir(dir)
+            .env("NO_COLOR", "1")
+            .env_remove("SPOOLSLEUTH_CASES")
+            .args(CALL)
+            .args(["--index-dir", "index", "--report", report])
+            .output()
+            .unwrap()
+    }
+
+    #[test]
+    fn a_markdown_work_order_has_every_section_and_a_sign_off() {
+        let dir = tempfile::tempdir().unwrap();
+        let out = run(dir.path(), "work-order.md");
+        assert_eq!(
+            out.status.code(),
+            Some(0),
+            "{}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+        assert!(String::from_utf8_lossy(&out.stderr).contains("report written to work-order.md"));
+        let md = std::fs::read_to_string(dir.path().join("work-order.md")).unwrap();
+        let headings: Vec<&str> = md.lines().filter(|l| l.starts_with("## ")).collect();
+        for wanted in [
+            "## Readings (metric)",
+            "## Causes, most likely first",
+            "## Sign-off",
+        ] {
+            assert!(
+                headings.contains(&wanted),
+                "{wanted} missing from {headings:?}"
+            );
+        }
+        assert!(md.contains("3.5 bar under load"), "{md}");
+        assert!(md.contains("licensed practice"));
+    }
+
+    #[test]
+    fn an_html_work_order_carries_the_valve_chart_with_both_points() {
+        let dir = tempfile::tempdir().unwrap();
+        let out = run(dir.path(), "work-order.html");
+        assert_eq!(
+            out.status.code(),
+            Some(0),
+            "{}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+        let html = std::fs::read_to_string(dir.path().join("work-order.html")).unwrap();
+        assert_eq!(html.matches("<svg").count(), 1, "one inline chart");
+        assert!(html.contains("<h2>What the valve is doing</h2>"));
+        // 150 − 30 = 120 bar and 185 − 140 = 45 bar over the load (derived).
+        assert!(html.contains("unloaded, 120 bar · 20 L/min, within the healthy band"));
+        assert!(html.contains("loaded, 45 bar · 14.2 L/min, 29 % below the set flow"));
+        assert!(!html.contains("<script"), "no scripts");
+        assert!(!html.contains("<link"), "no external resources");
+    }
+
+    #[test]
+    fn a_report_of_an_unknown_kind_is_refused_before_anything_is_written() {
+        let dir = tempfile::tempdir().unwrap();
+        let out = run(dir.path(), "work-order.pdf");
+        assert_eq!(out.status.code(), Some(2));
+        assert!(out.stdout.is_empty(), "nothing printed before the refusal");
+        assert!(String::from_utf8_lossy(&out.stderr).contains(
+            "error: --report: `work-order.pdf`: a report is written as .html or .md (the file name's extension chooses)"
+        ));
+        assert!(!dir.path().join("work-order.pdf").exists());
+    }
+}

@@ -258,3 +258,14 @@ fn the_walk_saves_its_case_note_when_asked() {
     assert!(text.contains("machine: press-4"), "{text}");
     assert!(text.contains("JT"), "{text}");
 }
+
+#[test]
+fn the_walk_ends_in_a_work_order_report() {
+    let dir = tempfile::tempdir().unwrap();
+    let report = dir.path().join("wo.md");
+    let (code, _, err) = guide(dir.path(), SAG, &["--report", report.to_str().unwrap()]);
+    assert_eq!(code, 0, "{err}");
+    let md = std::fs::read_to_string(&report).unwrap();
+    assert!(md.contains("Compensator spool sticking"), "{md}");
+    assert!(md.contains("## Sign-off"), "{md}");
+}

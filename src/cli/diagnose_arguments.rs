@@ -23,6 +23,9 @@ spoolsleuth diagnose --circuit restrictive --placement meter-in --actuator cylin
 --symptom speed-sags-under-load --readings readings.yaml --format markdown"
 )]
 pub struct DiagnoseArguments {
+    /// Also write a work-order report: FILE.html (with the valve chart) or FILE.md.
+    #[arg(long, value_name = "FILE")]
+    pub report: Option<std::path::PathBuf>,
     /// What drives the load (ad-hoc circuit).
     #[arg(long, value_enum, conflicts_with = "machine")]
     pub actuator: Option<ActuatorArgument>,

@@ -33,6 +33,9 @@ pub const PIPE_WIDTH: u16 = 120;
 
 /// Run `diagnose`.
 pub fn execute(context: &Context, arguments: DiagnoseArguments) -> Result<ExitStatus, Error> {
+    if let Some(path) = &arguments.report {
+        super::report_file::report_kind(path)?;
+    }
     let base = context.rule_base()?;
     let input = input(context, &base, &arguments)?;
     let notes = arguments
@@ -46,6 +49,9 @@ pub fn execute(context: &Context, arguments: DiagnoseArguments) -> Result<ExitSt
         report_format(arguments.format)
     };
     print_report(context, &diagnosis, format)?;
+    if let Some(path) = &arguments.report {
+        super::report_file::write_report(path, &diagnosis, &base)?;
+    }
     Ok(ExitStatus::Success)
 }
 

@@ -28,6 +28,9 @@ pub struct GuideArguments {
     /// The machine, so the walk does not ask for it.
     #[arg(long, value_name = "ID")]
     pub machine: Option<String>,
+    /// At the conclusion, write a work-order report: FILE.html (with the valve chart) or FILE.md.
+    #[arg(long, value_name = "FILE")]
+    pub report: Option<PathBuf>,
     /// Continue the walk saved in the session file.
     #[arg(long)]
     pub resume: bool,

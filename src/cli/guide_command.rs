@@ -14,6 +14,9 @@ use crate::output;
 
 /// Run the walk.
 pub fn execute(context: &Context, arguments: GuideArguments) -> Result<ExitStatus, Error> {
+    if let Some(path) = &arguments.report {
+        super::report_file::report_kind(path)?;
+    }
     let base = context.rule_base()?;
     let machines = MachineSet::load(
         arguments
@@ -67,6 +70,9 @@ pub fn execute(context: &Context, arguments: GuideArguments) -> Result<ExitStatu
             }
             Err(message) => eprintln!("not accepted: {message}"),
         }
+    }
+    if let (Some(path), Some(d)) = (&arguments.report, guide.diagnosis()) {
+        super::report_file::write_report(path, d, &base)?;
     }
     if let Some(initials) = guide.note_request() {
         save_note(&guide, initials, arguments.cases.as_deref())?;

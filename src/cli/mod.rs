@@ -18,6 +18,7 @@ mod guide_arguments;
 mod guide_command;
 mod machine_arguments;
 mod machine_command;
+mod report_file;
 mod rules_arguments;
 mod rules_command;
 
