@@ -22,7 +22,7 @@ use spoolsleuth::units::UnitSystem;
 const CHROMIUM: &str = "/usr/bin/chromium";
 /// A browser that has not written its screenshot by then is stuck.
 const BROWSER_TIMEOUT: Duration = Duration::from_secs(90);
-/// The screenshot's size, as the brief for the check gives it.
+/// The screenshot's size: a desktop-width window tall enough for the chart.
 const WINDOW: (u32, u32) = (1000, 1400);
 /// The colours of the curve and of the band, as the chart writes them.
 const CURVE: [u8; 3] = [0x1f, 0x4e, 0x79];

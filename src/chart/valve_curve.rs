@@ -40,12 +40,12 @@ pub struct ValveModel {
     pub velocity_coefficient: f64,
 }
 
-/// Strokes of the §7.2 illustration that set the default opening: 0.5 mm at 10 bar
+/// Strokes of the illustrative compensator that set the default opening: 0.5 mm at 10 bar
 /// and 1.5 mm at 200 bar of compensator drop, at the set flow (assumed values).
 const ILLUSTRATION_STROKES: [(f64, f64); 2] = [(10.0 * BAR, 0.5e-3), (200.0 * BAR, 1.5e-3)];
 
 impl Default for ValveModel {
-    /// The assumed valve of the reference sheet's §7.2 illustration: a 10 mm spool,
+    /// An illustrative valve (assumed values, derived model): a 10 mm spool,
     /// 5 N/mm spring, 870 kg/m³ oil, C_v 0.98, 69° jet, and the opening that puts the
     /// spool at 0.5 mm of stroke at 10 bar and 1.5 mm at 200 bar of compensator drop
     /// (x₀ = 1.788 mm, Δp_open = 5.189 bar; see [`ValveModel::opening_through_strokes`]).
@@ -439,7 +439,7 @@ mod tests {
         // derived (own model): x₀ = 1.788 mm, Δp_open = 5.189 bar
         printed(c.model().full_opening_m * 1e3, 1.788, 3);
         printed(c.model().open_drop_pa / BAR, 5.189, 3);
-        // reference sheet §7.2 illustration: 0.5 mm at 10 bar, 1.5 mm at 200 bar
+        // derived (own model, assumed strokes): 0.5 mm at 10 bar, 1.5 mm at 200 bar
         printed(c.stroke(10.0 * BAR, 10.0 * LPM) * 1e3, 0.5, 9);
         printed(c.stroke(200.0 * BAR, 10.0 * LPM) * 1e3, 1.5, 9);
     }
@@ -447,12 +447,12 @@ mod tests {
     #[test]
     fn k1_vector_from_the_chart_model() {
         let c = illustration();
-        // reference sheet §7.2 (derived, own model): 8.007 → 7.565 bar at 10 L/min
+        // derived (own force-balance model, flow force per Vacca §3.8.1): 8.007 → 7.565 bar at 10 L/min
         let low = c.held_metering_drop(10.0 * BAR, 10.0 * LPM).unwrap();
         let high = c.held_metering_drop(200.0 * BAR, 10.0 * LPM).unwrap();
         printed(low / BAR, 8.007, 3);
         printed(high / BAR, 7.565, 3);
-        // reference sheet §7.2: √(7.565/8.007) − 1 = −2.80 % flow
+        // derived: √(7.565/8.007) − 1 = −2.80 % flow
         printed(((high / low).sqrt() - 1.0) * 100.0, -2.80, 2);
     }
 

@@ -84,7 +84,7 @@ mod tests {
 
     #[test]
     fn worked_unit_examples() {
-        // Reference sheet §1.3 (NIST SP 811 factors): 1500 psi = 103.421 bar; 210 bar = 3045.79 psi.
+        // NIST SP 811 B.8 factors (derived): 1500 psi = 103.421 bar; 210 bar = 3045.79 psi.
         assert_eq!(
             shown("1500 psi", Kind::Pressure, UnitSystem::Metric),
             "103.4 bar"

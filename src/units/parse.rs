@@ -218,7 +218,7 @@ mod tests {
 
     #[test]
     fn the_readings_a_technician_types() {
-        // NIST SP 811 B.8 factors throughout; worked unit examples of the reference sheet §1.3.
+        // NIST SP 811 B.8 factors throughout (derived).
         let cases: &[(&str, Kind, f64)] = &[
             ("1500 psi", Kind::Pressure, 1500.0 * PSI),
             ("103 bar", Kind::Pressure, 103e5),
@@ -261,7 +261,7 @@ mod tests {
 
     #[test]
     fn vacuum_absolute_and_specific_gravity() {
-        // Reference sheet §1.3: 5 inHg vacuum = 16.932 kPa under atmospheric → 84.393 kPa abs.
+        // NIST SP 811 B.8, conventional inHg (derived): 5 inHg vacuum = 16.932 kPa under atmospheric → 84.393 kPa abs.
         let vac = si("5 inHg", Kind::Pressure);
         assert!((vac + 16931.9432).abs() < 1e-3);
         assert!(((vac + STANDARD_ATMOSPHERE) - 84_393.0).abs() < 1.0);
