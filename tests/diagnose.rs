@@ -1168,8 +1168,16 @@ Causes, most likely first
 │   ┆                                      ┆                             ┆       ┆ metering_drop@unloaded,             │
 │   ┆                                      ┆                             ┆       ┆ supply_headroom@unloaded            │
 │ 7 ┆ Compensator spool sticking           ┆ unlikely                    ┆ 12 %  ┆ sag-drop-collapses-with-headroom    │
-│   ┆ (compensator-sticking)               ┆                             ┆       ┆ (does not hold, weakens): (needs    │
-│   ┆                                      ┆                             ┆       ┆ metering_drop@unloaded)             │
+│   ┆ (compensator-sticking)               ┆                             ┆       ┆ (does not hold, weakens): decided   │
+│   ┆                                      ┆                             ┆       ┆ on drop_floor = 104.7 psi,          │
+│   ┆                                      ┆                             ┆       ┆ metering_drop@loaded = 50.76 psi,   │
+│   ┆                                      ┆                             ┆       ┆ required_headroom = 145 psi,        │
+│   ┆                                      ┆                             ┆       ┆ supply_headroom@loaded = -290.5 psi │
+│   ┆                                      ┆                             ┆       ┆ (check: metering_drop@unloaded >=   │
+│   ┆                                      ┆                             ┆       ┆ drop_floor and metering_drop@loaded │
+│   ┆                                      ┆                             ┆       ┆ < drop_floor and                    │
+│   ┆                                      ┆                             ┆       ┆ supply_headroom@loaded >=           │
+│   ┆                                      ┆                             ┆       ┆ required_headroom)                  │
 └───┴──────────────────────────────────────┴─────────────────────────────┴───────┴─────────────────────────────────────┘
 
 Next measurement
@@ -1279,7 +1287,7 @@ const MARKDOWN_REPORT: &str = r#"# Diagnosis: ad-hoc circuit (no machine profile
 
 ### 7. Compensator spool sticking (unlikely, 12 %)
 
-- sag-drop-collapses-with-headroom (does not hold, weakens): (needs metering_drop@unloaded)
+- sag-drop-collapses-with-headroom (does not hold, weakens): decided on drop_floor = 104.7 psi, metering_drop@loaded = 50.76 psi, required_headroom = 145 psi, supply_headroom@loaded = -290.5 psi (check: metering_drop@unloaded >= drop_floor and metering_drop@loaded < drop_floor and supply_headroom@loaded >= required_headroom)
 
 ## Next measurement
 

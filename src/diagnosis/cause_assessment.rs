@@ -143,7 +143,11 @@ fn assess(
                     Effect::RulesOut => ruled_out = true,
                 }
                 let label = if *holds { "true" } else { "false" };
-                (label, Some(effect), rule.evidence.render(values, units))
+                let text = rule
+                    .evidence
+                    .try_render(values, units)
+                    .unwrap_or_else(|| settled_by(base, rule, values, units));
+                (label, Some(effect), text)
             }
             Evaluated::Missing(names) => ("missing", None, format!("needs {}", names.join(", "))),
             Evaluated::Failed(message) => ("failed", None, format!("cannot compute: {message}")),
@@ -221,4 +225,42 @@ fn history_words(base: &RuleBase, cause: &str, history: &[CauseHistory]) -> Opti
         "{} of the last {} \"{symptom}\" cases on this machine were: {label}",
         h.count, h.of
     ))
+}
+
+/// When a check was settled by part of its readings and its sentence needs
+/// the rest: the values it was decided on, and the check itself.
+fn settled_by(base: &RuleBase, rule: &RuleDef, values: &Values, units: UnitSystem) -> String {
+    let known: Vec<String> = rule
+        .check
+        .inputs()
+        .into_iter()
+        .filter_map(|name| {
+            let value = values.get(&name)?;
+            let id = name.split('@').next().unwrap_or(&name);
+            let kind = base
+                .quantities
+                .get(id)
+                .map(|q| q.kind)
+                .or_else(|| base.settings.get(id).map(|s| s.kind))
+                .or_else(|| {
+                    base.derived
+                        .iter()
+                        .find(|d| d.entry.id == id)
+                        .map(|d| d.kind)
+                })?;
+            Some(format!(
+                "{name} = {}",
+                crate::units::format(*value, kind, units)
+            ))
+        })
+        .collect();
+    format!(
+        "decided on {} (check: {})",
+        if known.is_empty() {
+            "the readings at hand".to_string()
+        } else {
+            known.join(", ")
+        },
+        rule.check.source()
+    )
 }

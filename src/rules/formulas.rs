@@ -142,6 +142,16 @@ impl Evidence {
         }
     }
 
+    /// The sentence, or `None` when some of its numbers cannot be computed
+    /// on these readings (a check can be settled by one half of an `and`
+    /// while the sentence quotes both).
+    pub fn try_render(&self, values: &Values, system: UnitSystem) -> Option<String> {
+        match self.template.render(values, system) {
+            Ok(Outcome::Known(text)) => Some(text),
+            _ => None,
+        }
+    }
+
     /// The readings it reads.
     pub fn inputs(&self) -> Vec<String> {
         self.template.inputs()
