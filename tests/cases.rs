@@ -758,3 +758,76 @@ fn the_default_index_lives_in_the_cache_folder() {
     assert_eq!(entries.len(), 1);
     assert!(entries[0].starts_with("index-"), "{entries:?}");
 }
+
+#[test]
+fn a_note_is_added_straight_from_a_diagnosis() {
+    let dir = tempfile::tempdir().unwrap();
+    let json = dir.path().join("d.json");
+    let diagnose = assert_cmd::Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
+        .current_dir(dir.path())
+        .env("NO_COLOR", "1")
+        .env_remove("SPOOLSLEUTH_CASES")
+        .args([
+            "diagnose",
+            "--machine",
+            "press-4",
+            "--complaint",
+            "bogs down under load",
+            "--reading",
+            "supply_pressure@unloaded=150 bar",
+            "--reading",
+            "inter_pressure@unloaded=38 bar",
+            "--reading",
+            "load_pressure@unloaded=30 bar",
+            "--reading",
+            "supply_pressure@loaded=185 bar",
+            "--reading",
+            "inter_pressure@loaded=143.5 bar",
+            "--reading",
+            "load_pressure@loaded=140 bar",
+            "--index-dir",
+            "index",
+            "--json",
+        ])
+        .output()
+        .unwrap();
+    assert_eq!(diagnose.status.code(), Some(0));
+    std::fs::write(&json, &diagnose.stdout).unwrap();
+    let notes = dir.path().join("notes");
+    let add = assert_cmd::Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
+        .current_dir(dir.path())
+        .env_remove("SPOOLSLEUTH_CASES")
+        .args(["cases", "add", "--cases"])
+        .arg(&notes)
+        .arg("--from-json")
+        .arg(&json)
+        .args(["--tech", "JT"])
+        .output()
+        .unwrap();
+    assert_eq!(
+        add.status.code(),
+        Some(0),
+        "{}",
+        String::from_utf8_lossy(&add.stderr)
+    );
+    let file = std::fs::read_dir(&notes)
+        .unwrap()
+        .next()
+        .unwrap()
+        .unwrap()
+        .path();
+    let text = std::fs::read_to_string(file).unwrap();
+    for line in [
+        "machine: press-4",
+        "title: bogs down under load",
+        "- speed-sags-under-load",
+        "cause: compensator-sticking",
+        "  inter_pressure@loaded: 143.5 bar",
+        "tech: JT",
+    ] {
+        assert!(
+            text.lines().any(|l| l == line),
+            "{line:?} missing from\n{text}"
+        );
+    }
+}

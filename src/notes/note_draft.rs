@@ -73,14 +73,27 @@ impl NoteDraft {
         let Value::Object(object) = &value else {
             return Err(json_error("a diagnosis must be a JSON object".into()));
         };
+        // A field may be plain text, or an object as `diagnose --json` writes
+        // it (`machine: {id, name}`, `fix: {cause, label, text}`).
         let text_of = |keys: &[&str]| {
-            keys.iter()
-                .find_map(|key| object.get(*key).and_then(scalar_text))
+            keys.iter().find_map(|key| {
+                let v = object.get(*key)?;
+                scalar_text(v)
+                    .or_else(|| v.get("id").and_then(scalar_text))
+                    .or_else(|| v.get("text").and_then(scalar_text))
+            })
         };
         let cause = object
             .get("leading_cause")
             .and_then(|v| v.get("id").and_then(scalar_text).or_else(|| scalar_text(v)))
-            .or_else(|| text_of(&["leading_cause_id", "cause"]));
+            .or_else(|| text_of(&["leading_cause_id", "cause"]))
+            .or_else(|| {
+                object
+                    .get("fix")
+                    .and_then(|f| f.get("cause"))
+                    .and_then(scalar_text)
+            })
+            .or_else(|| leading_of_diagnosis(object));
         Ok(NoteDraft {
             cause,
             date: text_of(&["date"]),
@@ -250,6 +263,23 @@ fn scalar_text(value: &Value) -> Option<String> {
     }
 }
 
+/// The leading cause of a `diagnose --json` object: the first cause that is
+/// confirmed or likely.
+fn leading_of_diagnosis(object: &serde_json::Map<String, Value>) -> Option<String> {
+    object
+        .get("causes")?
+        .as_array()?
+        .iter()
+        .find(|c| {
+            matches!(
+                c.get("status").and_then(Value::as_str),
+                Some("confirmed" | "likely")
+            )
+        })?
+        .get("cause")
+        .and_then(scalar_text)
+}
+
 fn list_of(value: &Value) -> Vec<String> {
     match value {
         Value::Array(items) => items
@@ -273,6 +303,10 @@ fn readings_of(value: &Value) -> Vec<String> {
             .filter_map(|item| {
                 scalar_text(item).or_else(|| {
                     let name = item.get("name").and_then(scalar_text)?;
+                    // `diagnose --json` readings carry the value as printed.
+                    if let Some(shown) = item.get("shown").and_then(scalar_text) {
+                        return Some(format!("{name}: {shown}"));
+                    }
                     let value = item.get("value").and_then(scalar_text)?;
                     let unit = item
                         .get("unit")
