@@ -26,11 +26,14 @@ use super::{
 use crate::notes::{Note, NoteFile, NotesError, NotesFolder};
 
 /// Memory budget of the index writer for a full build, in bytes, for its
-/// one indexing thread. With the merge cap below, a full build of 100k
-/// notes stays under 200 MB.
-pub const WRITER_MEMORY_BUDGET: usize = 24_000_000;
-/// Segments with more notes than this are not merged further.
-const MERGE_MAX_DOCS: usize = 20_000;
+/// one indexing thread. With the merge limits below, a full build of 100k
+/// notes peaks at about 170 MB (measured; see tests/benches/RESULTS.md).
+pub const WRITER_MEMORY_BUDGET: usize = 20_000_000;
+/// Segments are merged four at a time (tantivy's default of eight maps
+/// twice as much into memory per merge)...
+const MERGE_MIN_SEGMENTS: usize = 4;
+/// ...and those with more notes than this are not merged further.
+const MERGE_MAX_DOCS: usize = 10_000;
 /// A note modified less than this before it was read is read again on the
 /// next check (file system times can be as coarse as 2 s).
 const RACY_WINDOW: Duration = Duration::from_secs(3);
@@ -438,10 +441,11 @@ fn try_open<'b>(
 }
 
 /// The merge policy of every writer: segments of up to `MERGE_MAX_DOCS`
-/// notes are merged, larger ones are left alone, so a merge never maps more
-/// than a few small segments into memory at once.
+/// notes are merged `MERGE_MIN_SEGMENTS` at a time, larger ones are left
+/// alone, so a merge never maps more than a few small segments into memory.
 fn merge_policy() -> Box<LogMergePolicy> {
     let mut policy = LogMergePolicy::default();
+    policy.set_min_num_segments(MERGE_MIN_SEGMENTS);
     policy.set_max_docs_before_merge(MERGE_MAX_DOCS);
     Box::new(policy)
 }
