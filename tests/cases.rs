@@ -3,6 +3,7 @@
 //! exit codes asserted.
 
 use std::fs;
+use std::io::Write;
 use std::path::{Path, PathBuf};
 use std::process::Output;
 
@@ -365,6 +366,61 @@ fn added_edited_and_deleted_notes_are_picked_up() {
     assert_eq!(ids(&workspace.run(&["search", "", "--json"])).len(), 2);
 }
 
+#[test]
+fn an_edit_in_place_that_keeps_the_size_is_picked_up() {
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    status(&workspace.run(&["search", "silt"]), 0);
+    let path = workspace.notes().join("2024-03-02-press-4-sag.md");
+    let before = fs::read_to_string(&path).unwrap();
+    let after = before.replace("silt", "grit");
+    assert_eq!(before.len(), after.len());
+    // Rewrite the same file (no rename, so the folder itself is unchanged)
+    // with a modification time that differs by one second.
+    let file = fs::OpenOptions::new().write(true).open(&path).unwrap();
+    let modified = file.metadata().unwrap().modified().unwrap();
+    (&file).write_all(after.as_bytes()).unwrap();
+    file.set_modified(modified + std::time::Duration::from_secs(1))
+        .unwrap();
+    drop(file);
+    status(&workspace.run(&["search", "silt"]), 1);
+    assert_eq!(
+        ids(&workspace.run(&["search", "grit", "--json"])),
+        ["2024-03-02-press-4-sag"]
+    );
+}
+
+#[test]
+fn a_note_rewritten_within_the_same_time_stamp_is_picked_up() {
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    let path = workspace.notes().join("2024-03-02-press-4-sag.md");
+    // A time not yet past when the note is indexed (as for a note written
+    // a moment before, or by a machine whose clock runs ahead).
+    let stamp = std::time::SystemTime::now() + std::time::Duration::from_secs(86_400);
+    fs::File::options()
+        .write(true)
+        .open(&path)
+        .unwrap()
+        .set_modified(stamp)
+        .unwrap();
+    status(&workspace.run(&["search", "silt"]), 0);
+    // Same size and the very same time: only a note indexed too soon after
+    // its last write is read again, and this one was.
+    let before = fs::read_to_string(&path).unwrap();
+    let file = fs::OpenOptions::new().write(true).open(&path).unwrap();
+    (&file)
+        .write_all(before.replace("silt", "grit").as_bytes())
+        .unwrap();
+    file.set_modified(stamp).unwrap();
+    drop(file);
+    assert_eq!(fs::metadata(&path).unwrap().modified().unwrap(), stamp);
+    assert_eq!(
+        ids(&workspace.run(&["search", "grit", "--json"])),
+        ["2024-03-02-press-4-sag"]
+    );
+}
+
 /// The largest file of the index (a segment file).
 fn largest_index_file(workspace: &Workspace) -> PathBuf {
     fs::read_dir(workspace.index())
@@ -372,7 +428,7 @@ fn largest_index_file(workspace: &Workspace) -> PathBuf {
         .map(|e| e.unwrap().path())
         .filter(|p| {
             p.extension()
-                .is_some_and(|e| e != "json" && e != "txt" && e != "lock")
+                .is_some_and(|e| e != "json" && e != "bin" && e != "lock")
         })
         .max_by_key(|p| fs::metadata(p).unwrap().len())
         .unwrap()
@@ -430,17 +486,13 @@ fn an_index_from_another_schema_version_is_rebuilt() {
     let workspace = Workspace::new();
     two_notes(&workspace);
     status(&workspace.run(&["search", "silt"]), 0);
-    let manifest = workspace.index().join("spoolsleuth-manifest.txt");
-    let text = fs::read_to_string(&manifest).unwrap();
-    fs::write(
-        &manifest,
-        text.replacen(
-            "spoolsleuth-index-manifest 1",
-            "spoolsleuth-index-manifest 0",
-            1,
-        ),
-    )
-    .unwrap();
+    // The manifest starts with a text line naming its schema version.
+    let manifest = workspace.index().join("spoolsleuth-manifest.bin");
+    let mut bytes = fs::read(&manifest).unwrap();
+    let header = b"spoolsleuth-index-manifest 1\n";
+    assert!(bytes.starts_with(header));
+    bytes[header.len() - 2] = b'0';
+    fs::write(&manifest, bytes).unwrap();
     let output = workspace.run(&["search", "silt", "--json"]);
     assert_eq!(ids(&output), ["2024-03-02-press-4-sag"]);
     assert_eq!(

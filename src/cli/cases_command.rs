@@ -136,7 +136,9 @@ fn search_notes(
     })
 }
 
-fn render_results(results: &SearchResults, terminal: bool) -> String {
+/// The search results as `cases search` prints them: a table, or a table
+/// with terminal styling when `terminal`.
+pub fn render_results(results: &SearchResults, terminal: bool) -> String {
     let mut text = String::new();
     if let Some(better) = &results.did_you_mean {
         text.push_str(&format!("did you mean: {better}\n"));

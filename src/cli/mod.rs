@@ -24,6 +24,7 @@ mod rules_command;
 
 pub use arguments::Arguments;
 pub use calc_arguments::CalcArguments;
+pub use cases_command::render_results;
 
 use crate::error::{Error, ExitStatus};
 use arguments::Command;

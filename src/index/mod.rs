@@ -17,7 +17,10 @@ pub use analyzers::{query_tokenizers, register_index_analyzers, EN_ANALYZER, PLA
 pub use content_hash::content_hash;
 pub use index_error::IndexError;
 pub use index_location::IndexLocation;
-pub use manifest::{Manifest, ManifestEntry, ManifestProblem, MANIFEST_FILE};
+pub use manifest::{
+    read_manifest_bytes, IndexFingerprint, Manifest, ManifestEntry, ManifestProblem, ManifestView,
+    ManifestWriter, NoteRecord, MANIFEST_FILE,
+};
 pub use note_index::{NoteIndex, WRITER_MEMORY_BUDGET};
 pub use note_schema::{NoteSchema, SCHEMA_VERSION};
 pub use sync_report::SyncReport;

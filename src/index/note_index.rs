@@ -4,24 +4,39 @@
 //! nothing here writes to the notes folder, and a rebuild deletes only the
 //! index's own files inside the index folder.
 
+use std::collections::HashMap;
 use std::fs::{self, File, OpenOptions};
+use std::io::ErrorKind;
 use std::path::{Path, PathBuf};
-use std::time::UNIX_EPOCH;
+use std::time::{Duration, SystemTime, UNIX_EPOCH};
 
 use fs4::fs_std::FileExt;
 use indicatif::{ProgressBar, ProgressStyle};
+use tantivy::merge_policy::LogMergePolicy;
 use tantivy::{Index, IndexReader, IndexWriter, ReloadPolicy, Searcher, TantivyError, Term};
 
-use super::manifest::{IndexFingerprint, ManifestProblem, MANIFEST_FILE};
+use super::manifest::{
+    read_manifest_bytes, IndexFingerprint, ManifestProblem, ManifestView, ManifestWriter,
+    MANIFEST_FILE, OLD_MANIFEST_FILE,
+};
 use super::{
     content_hash, register_index_analyzers, IndexError, IndexLocation, IndexResult, Manifest,
     ManifestEntry, NoteSchema, SyncReport,
 };
-use crate::notes::{Note, NoteFile, NotesFolder};
+use crate::notes::{Note, NoteFile, NotesError, NotesFolder};
 
-/// Memory budget of the index writer for a full build, in bytes (split over
-/// its threads). Chosen so that indexing 100k notes stays well under 200 MB.
-pub const WRITER_MEMORY_BUDGET: usize = 40_000_000;
+/// Memory budget of the index writer for a full build, in bytes, for its
+/// one indexing thread. With the merge limits below, a full build of 100k
+/// notes peaks at about 170 MB (measured; see tests/benches/RESULTS.md).
+pub const WRITER_MEMORY_BUDGET: usize = 20_000_000;
+/// Segments are merged four at a time (tantivy's default of eight maps
+/// twice as much into memory per merge)...
+const MERGE_MIN_SEGMENTS: usize = 4;
+/// ...and those with more notes than this are not merged further.
+const MERGE_MAX_DOCS: usize = 10_000;
+/// A note modified less than this before it was read is read again on the
+/// next check (file system times can be as coarse as 2 s).
+const RACY_WINDOW: Duration = Duration::from_secs(3);
 /// Budget for incremental updates: tantivy's minimum for one thread.
 const UPDATE_MEMORY_BUDGET: usize = 15_000_000;
 /// Show a progress bar from this many notes to index on.
@@ -145,11 +160,20 @@ impl NoteIndex {
         fs::create_dir_all(dir).map_err(|e| IndexError::io(dir, e))?;
         refuse_foreign_folder(dir)?;
         // Fast path without our lock: an intact index with nothing to do.
-        if let Ok((index, manifest)) = try_open(dir) {
-            let files = folder.list()?;
-            if changes(&manifest, &files).is_empty() {
+        // Listing the notes and opening the index run side by side.
+        let bytes = read_manifest_bytes(dir);
+        let (scanned, opened) = std::thread::scope(|scope| {
+            let scan = scope.spawn(|| folder.scan());
+            let opened = try_open(dir, bytes.as_deref());
+            // Listing cannot panic on file data; if it did, list here instead.
+            let scanned = scan.join().unwrap_or_else(|_| folder.scan());
+            (scanned, opened)
+        });
+        let files = scanned?;
+        if let Ok((index, view)) = opened {
+            if is_current(&view, &files) {
                 let report = SyncReport {
-                    broken: broken_of(&folder, &manifest),
+                    broken: broken_of(&folder, view.notes.iter().filter_map(|n| n.broken)),
                     ..SyncReport::default()
                 };
                 return Ok((index.into_note_index(folder, dir)?, report));
@@ -157,36 +181,47 @@ impl NoteIndex {
         }
         let _lock = lock(dir)?;
         // Re-check under the lock: another process may have done the work.
-        match try_open(dir) {
-            Ok((index, manifest)) => {
-                let index = index.into_note_index(folder, dir)?;
-                index.apply_changes(manifest)
-            }
+        let bytes = read_manifest_bytes(dir);
+        let reopened =
+            try_open(dir, bytes.as_deref()).map(|(index, view)| (index, view.to_manifest()));
+        match reopened {
+            Ok((index, manifest)) => index
+                .into_note_index(folder, dir)?
+                .apply_changes(manifest, &files),
             Err(reason) => Self::rebuild(folder, dir, reason),
         }
     }
 
-    /// Index new and edited notes and drop deleted ones; caller holds the lock.
-    fn apply_changes(self, mut manifest: Manifest) -> IndexResult<(NoteIndex, SyncReport)> {
+    /// Index new and edited notes of `files` (listed just before) and drop
+    /// deleted ones; caller holds the lock.
+    fn apply_changes(
+        self,
+        mut manifest: Manifest,
+        files: &[NoteFile],
+    ) -> IndexResult<(NoteIndex, SyncReport)> {
         let dir = self.dir.clone().unwrap_or_default();
-        let files = self.folder.list()?;
         let mut report = SyncReport::default();
         let mut writer: Option<IndexWriter> = None;
-        let change = changes(&manifest, &files);
-        for name in &change.removed {
-            let writer = self.writer(&mut writer, &dir)?;
-            writer.delete_term(Term::from_field_text(self.schema.id, &name_to_id(name)));
-            manifest.entries.remove(name);
-            report.removed += 1;
-        }
+        let change = changes(&manifest, files);
+        let mut removed = change.removed;
         for file in &change.changed {
-            let text = self.folder.read(&file.name)?;
+            let text = match self.folder.read(&file.name) {
+                Ok(text) => text,
+                // Deleted since it was listed: drop it like any deleted note.
+                Err(NotesError::Io { source, .. }) if source.kind() == ErrorKind::NotFound => {
+                    if manifest.entries.contains_key(&file.name) {
+                        removed.push(file.name.clone());
+                    }
+                    continue;
+                }
+                Err(error) => return Err(error.into()),
+            };
             let hash = content_hash(text.as_bytes());
             let known = manifest.entries.get(&file.name);
             let entry = |broken| ManifestEntry {
                 broken,
                 hash,
-                mtime_ns: file.mtime_ns,
+                mtime_ns: settled_mtime(file.mtime_ns),
                 size: file.size,
             };
             if known.is_some_and(|k| k.hash == hash) {
@@ -216,6 +251,12 @@ impl NoteIndex {
             }
             manifest.entries.insert(file.name.clone(), entry(broken));
         }
+        for name in &removed {
+            let writer = self.writer(&mut writer, &dir)?;
+            writer.delete_term(Term::from_field_text(self.schema.id, &name_to_id(name)));
+            manifest.entries.remove(name);
+            report.removed += 1;
+        }
         if let Some(mut writer) = writer {
             writer.commit().map_err(|e| tantivy(&dir, e))?;
             writer
@@ -228,7 +269,13 @@ impl NoteIndex {
         } else {
             manifest.save(&dir)?;
         }
-        report.broken = broken_of(&self.folder, &manifest);
+        report.broken = broken_of(
+            &self.folder,
+            manifest
+                .entries
+                .values()
+                .filter_map(|e| e.broken.as_deref()),
+        );
         Ok((self, report))
     }
 
@@ -238,18 +285,21 @@ impl NoteIndex {
         dir: &Path,
     ) -> IndexResult<&'w mut IndexWriter> {
         if writer.is_none() {
-            *writer = Some(
-                self.index
-                    .writer_with_num_threads(1, UPDATE_MEMORY_BUDGET)
-                    .map_err(|e| tantivy(dir, e))?,
-            );
+            let new = self
+                .index
+                .writer_with_num_threads(1, UPDATE_MEMORY_BUDGET)
+                .map_err(|e| tantivy(dir, e))?;
+            new.set_merge_policy(merge_policy());
+            *writer = Some(new);
         }
         writer
             .as_mut()
             .ok_or_else(|| IndexError::io(dir, std::io::Error::other("no index writer")))
     }
 
-    /// Index every note from scratch; caller holds the lock.
+    /// Index every note from scratch; caller holds the lock. Notes are read
+    /// and indexed one at a time in directory order, and their manifest
+    /// records appended as they go, so memory stays with the index writer.
     fn rebuild(
         folder: NotesFolder,
         dir: &Path,
@@ -261,20 +311,27 @@ impl NoteIndex {
         let index =
             Index::create_in_dir(dir, schema.schema.clone()).map_err(|e| tantivy(dir, e))?;
         register_index_analyzers(&index);
-        let threads = std::thread::available_parallelism().map_or(1, |n| n.get().min(2));
         let mut writer: IndexWriter = index
-            .writer_with_num_threads(threads, WRITER_MEMORY_BUDGET)
+            .writer_with_num_threads(1, WRITER_MEMORY_BUDGET)
             .map_err(|e| tantivy(dir, e))?;
-        let files = folder.list()?;
-        let progress = progress_bar(files.len());
-        let mut manifest = Manifest::default();
+        writer.set_merge_policy(merge_policy());
+        let progress = progress_bar(folder.count()?);
+        let mut manifest = ManifestWriter::default();
+        let mut broken = Vec::new();
         let mut report = SyncReport {
             rebuilt: Some(reason),
             ..SyncReport::default()
         };
-        for file in &files {
-            let text = folder.read(&file.name)?;
-            let broken = match Note::parse(Path::new(&file.name), &text) {
+        folder.for_each_file(|file| -> IndexResult<()> {
+            let text = match folder.read(&file.name) {
+                Ok(text) => text,
+                // Deleted since it was listed: nothing to index.
+                Err(NotesError::Io { source, .. }) if source.kind() == ErrorKind::NotFound => {
+                    return Ok(())
+                }
+                Err(error) => return Err(error.into()),
+            };
+            let problem = match Note::parse(Path::new(&file.name), &text) {
                 Ok(note) => {
                     writer
                         .add_document(schema.document(&note))
@@ -282,24 +339,29 @@ impl NoteIndex {
                     report.added += 1;
                     None
                 }
-                Err(error) => Some(error.to_string()),
+                Err(error) => {
+                    let message = error.to_string();
+                    broken.push(qualify(&folder, &message));
+                    Some(message)
+                }
             };
             let entry = ManifestEntry {
-                broken,
+                broken: problem,
                 hash: content_hash(text.as_bytes()),
-                mtime_ns: file.mtime_ns,
+                mtime_ns: settled_mtime(file.mtime_ns),
                 size: file.size,
             };
-            manifest.entries.insert(file.name.clone(), entry);
+            manifest.push(&file.name, &entry);
             progress.inc(1);
-        }
+            Ok(())
+        })?;
         progress.set_message("committing");
         writer.commit().map_err(|e| tantivy(dir, e))?;
         writer.wait_merging_threads().map_err(|e| tantivy(dir, e))?;
-        manifest.index_files = index_fingerprint(dir)?;
-        manifest.save(dir)?;
+        manifest.save(dir, &index_fingerprint(dir)?)?;
         progress.finish_and_clear();
-        report.broken = broken_of(&folder, &manifest);
+        broken.sort();
+        report.broken = broken;
         let reader = manual_reader(&index).map_err(|e| tantivy(dir, e))?;
         Ok((
             NoteIndex {
@@ -332,34 +394,43 @@ impl OpenedIndex {
     }
 }
 
-/// Open and validate the index in `dir`, or say why it must be rebuilt.
-fn try_open(dir: &Path) -> Result<(OpenedIndex, Manifest), String> {
-    if !dir.join("meta.json").exists() {
-        return Err("there was no index yet".into());
-    }
-    let manifest = Manifest::load(dir).map_err(|problem| match problem {
+/// Why a manifest cannot be used, as the reason for a rebuild.
+fn describe(problem: &ManifestProblem) -> String {
+    match problem {
         ManifestProblem::Missing => "its manifest was missing".to_string(),
         ManifestProblem::OtherVersion(v) => format!("it was written with schema version {v}"),
         ManifestProblem::Unreadable(why) => format!("its manifest was unreadable ({why})"),
-    })?;
+    }
+}
+
+/// Open and check the index in `dir` against its manifest `bytes`, or say
+/// why it must be rebuilt.
+fn try_open<'b>(
+    dir: &Path,
+    bytes: Result<&'b [u8], &ManifestProblem>,
+) -> Result<(OpenedIndex, ManifestView<'b>), String> {
+    if !dir.join("meta.json").exists() {
+        return Err("there was no index yet".into());
+    }
+    let manifest = ManifestView::parse(bytes.map_err(describe)?).map_err(|p| describe(&p))?;
     let index = Index::open_in_dir(dir).map_err(|e| format!("it could not be opened ({e})"))?;
     if index.schema() != NoteSchema::new().schema {
         return Err("its schema differs".into());
     }
     register_index_analyzers(&index);
-    // Catches files damaged in place, which opening and searching do not notice.
-    let damaged = index
-        .validate_checksum()
-        .map_err(|e| format!("it could not be checked ({e})"))?;
-    if !damaged.is_empty() {
-        return Err(format!("{} of its files were damaged", damaged.len()));
+    // Files damaged in place are not noticed by opening or searching; their
+    // checksums are read (the whole index) only when the index files are not
+    // as the last write left them.
+    if index_fingerprint(dir).ok().as_ref() != Some(&manifest.index_files) {
+        let damaged = index
+            .validate_checksum()
+            .map_err(|e| format!("it could not be checked ({e})"))?;
+        if !damaged.is_empty() {
+            return Err(format!("{} of its files were damaged", damaged.len()));
+        }
     }
     let reader = manual_reader(&index).map_err(|e| format!("it could not be read ({e})"))?;
-    let indexed = manifest
-        .entries
-        .values()
-        .filter(|e| e.broken.is_none())
-        .count() as u64;
+    let indexed = manifest.indexed() as u64;
     let found = reader.searcher().num_docs();
     if found != indexed {
         return Err(format!(
@@ -367,6 +438,50 @@ fn try_open(dir: &Path) -> Result<(OpenedIndex, Manifest), String> {
         ));
     }
     Ok((OpenedIndex { index, reader }, manifest))
+}
+
+/// The merge policy of every writer: segments of up to `MERGE_MAX_DOCS`
+/// notes are merged `MERGE_MIN_SEGMENTS` at a time, larger ones are left
+/// alone, so a merge never maps more than a few small segments into memory.
+fn merge_policy() -> Box<LogMergePolicy> {
+    let mut policy = LogMergePolicy::default();
+    policy.set_min_num_segments(MERGE_MIN_SEGMENTS);
+    policy.set_max_docs_before_merge(MERGE_MAX_DOCS);
+    Box::new(policy)
+}
+
+/// A modification time to record for a file read now: its own, or 0 when it
+/// is so recent that a second write within the file system's time
+/// resolution could follow unseen (same size, same time). A 0 never matches
+/// a real file, so the next check reads such a note again.
+fn settled_mtime(mtime_ns: u128) -> u128 {
+    let now = SystemTime::now()
+        .duration_since(UNIX_EPOCH)
+        .map_or(0, |d| d.as_nanos());
+    if now.saturating_sub(mtime_ns) < RACY_WINDOW.as_nanos() {
+        0
+    } else {
+        mtime_ns
+    }
+}
+
+/// True when every listed file is in the manifest with the same size and
+/// time, and the manifest lists no other file.
+fn is_current(manifest: &ManifestView<'_>, files: &[NoteFile]) -> bool {
+    if manifest.notes.len() != files.len() {
+        return false;
+    }
+    let known: HashMap<&str, (u64, u128)> = manifest
+        .notes
+        .iter()
+        .map(|n| (n.name, (n.size, n.mtime_ns)))
+        .collect();
+    // Names are unique on both sides and as many: each file matching one
+    // record leaves no record over, so no note was deleted.
+    known.len() == files.len()
+        && files
+            .iter()
+            .all(|f| known.get(f.name.as_str()) == Some(&(f.size, f.mtime_ns)))
 }
 
 fn manual_reader(index: &Index) -> tantivy::Result<IndexReader> {
@@ -381,12 +496,6 @@ fn manual_reader(index: &Index) -> tantivy::Result<IndexReader> {
 struct Changes<'f> {
     changed: Vec<&'f NoteFile>,
     removed: Vec<String>,
-}
-
-impl Changes<'_> {
-    fn is_empty(&self) -> bool {
-        self.changed.is_empty() && self.removed.is_empty()
-    }
 }
 
 fn changes<'f>(manifest: &Manifest, files: &'f [NoteFile]) -> Changes<'f> {
@@ -413,14 +522,11 @@ fn name_to_id(name: &str) -> String {
     name.strip_suffix(".md").unwrap_or(name).to_string()
 }
 
-/// The broken notes of a manifest, with the folder in front of each message.
-fn broken_of(folder: &NotesFolder, manifest: &Manifest) -> Vec<String> {
-    manifest
-        .entries
-        .values()
-        .filter_map(|e| e.broken.as_deref())
-        .map(|message| qualify(folder, message))
-        .collect()
+/// The broken notes' messages, sorted, with the folder in front of each.
+fn broken_of<'m>(folder: &NotesFolder, messages: impl Iterator<Item = &'m str>) -> Vec<String> {
+    let mut broken: Vec<String> = messages.map(|m| qualify(folder, m)).collect();
+    broken.sort();
+    broken
 }
 
 fn qualify(folder: &NotesFolder, message: &str) -> String {
@@ -464,6 +570,7 @@ fn is_index_file(name: &str) -> bool {
 fn is_own_file(name: &str) -> bool {
     is_index_file(name)
         || name == MANIFEST_FILE
+        || name == OLD_MANIFEST_FILE
         || name == LOCK_FILE
         || name.starts_with(".spoolsleuth-manifest-")
 }
@@ -511,7 +618,11 @@ fn refuse_foreign_folder(dir: &Path) -> IndexResult<()> {
             .file_name()
             .to_string_lossy()
             .into_owned();
-        if name == MANIFEST_FILE || name == "meta.json" || name == LOCK_FILE {
+        if name == MANIFEST_FILE
+            || name == OLD_MANIFEST_FILE
+            || name == "meta.json"
+            || name == LOCK_FILE
+        {
             return Ok(());
         }
         if !is_own_file(&name) {

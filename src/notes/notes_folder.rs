@@ -62,19 +62,54 @@ impl NotesFolder {
 
     /// Every note file (`*.md`, not hidden), sorted by name.
     pub fn list(&self) -> NotesResult<Vec<NoteFile>> {
-        let mut files = match self {
-            NotesFolder::Embedded => demo_notes()
-                .iter()
-                .map(|(name, text)| NoteFile {
-                    mtime_ns: 0,
-                    name: (*name).to_string(),
-                    size: text.len() as u64,
-                })
-                .collect(),
-            NotesFolder::Disk(dir) => list_dir(dir)?,
-        };
+        let mut files = self.scan()?;
         files.sort_by(|a, b| a.name.cmp(&b.name));
         Ok(files)
+    }
+
+    /// Every note file in directory order: the quick listing behind the
+    /// check for changed notes. On a large folder the sizes and times are
+    /// read on two threads.
+    pub fn scan(&self) -> NotesResult<Vec<NoteFile>> {
+        match self {
+            NotesFolder::Embedded => Ok(embedded_files().collect()),
+            NotesFolder::Disk(dir) => scan_dir(dir),
+        }
+    }
+
+    /// The number of note files, from their names alone (no sizes or times).
+    pub fn count(&self) -> NotesResult<usize> {
+        match self {
+            NotesFolder::Embedded => Ok(demo_notes().len()),
+            NotesFolder::Disk(dir) => {
+                let mut count = 0;
+                for entry in fs::read_dir(dir).map_err(|e| NotesError::io(dir, e))? {
+                    let entry = entry.map_err(|e| NotesError::io(dir, e))?;
+                    count += usize::from(note_name(&entry).is_some());
+                }
+                Ok(count)
+            }
+        }
+    }
+
+    /// Call `visit` on each note file in directory order, one at a time, so
+    /// a full build never holds the list of all notes.
+    pub fn for_each_file<E: From<NotesError>>(
+        &self,
+        mut visit: impl FnMut(NoteFile) -> Result<(), E>,
+    ) -> Result<(), E> {
+        match self {
+            NotesFolder::Embedded => embedded_files().try_for_each(visit),
+            NotesFolder::Disk(dir) => {
+                for entry in fs::read_dir(dir).map_err(|e| NotesError::io(dir, e))? {
+                    let entry = entry.map_err(|e| NotesError::io(dir, e))?;
+                    if let Some(file) = note_file(&entry) {
+                        visit(file)?;
+                    }
+                }
+                Ok(())
+            }
+        }
     }
 
     /// The text of a note file.
@@ -161,36 +196,74 @@ impl NotesFolder {
     }
 }
 
-fn list_dir(dir: &Path) -> NotesResult<Vec<NoteFile>> {
-    let entries = fs::read_dir(dir).map_err(|e| NotesError::io(dir, e))?;
-    let mut files = Vec::new();
-    for entry in entries {
+fn embedded_files() -> impl Iterator<Item = NoteFile> {
+    demo_notes().iter().map(|(name, text)| NoteFile {
+        mtime_ns: 0,
+        name: (*name).to_string(),
+        size: text.len() as u64,
+    })
+}
+
+/// From this many notes on, a scan reads sizes and times on two threads.
+const PARALLEL_SCAN_FROM: usize = 4_096;
+
+fn scan_dir(dir: &Path) -> NotesResult<Vec<NoteFile>> {
+    let mut entries = Vec::new();
+    for entry in fs::read_dir(dir).map_err(|e| NotesError::io(dir, e))? {
         let entry = entry.map_err(|e| NotesError::io(dir, e))?;
-        let Ok(name) = entry.file_name().into_string() else {
-            continue;
-        };
-        if name.starts_with('.') || !name.ends_with(".md") {
-            continue;
+        if note_name(&entry).is_some() {
+            entries.push(entry);
         }
-        // Follows symlinks, so a linked note counts like a real one.
-        let Ok(metadata) = fs::metadata(entry.path()) else {
-            continue;
-        };
-        if !metadata.is_file() {
-            continue;
-        }
-        let mtime_ns = metadata
-            .modified()
-            .ok()
-            .and_then(|t| t.duration_since(UNIX_EPOCH).ok())
-            .map_or(0, |d| d.as_nanos());
-        files.push(NoteFile {
-            mtime_ns,
-            name,
-            size: metadata.len(),
-        });
     }
-    Ok(files)
+    let stat_all = |entries: &[fs::DirEntry]| -> Vec<NoteFile> {
+        entries.iter().filter_map(note_file).collect()
+    };
+    let threads = std::thread::available_parallelism().map_or(1, |n| n.get());
+    if entries.len() < PARALLEL_SCAN_FROM || threads < 2 {
+        return Ok(stat_all(&entries));
+    }
+    let (first, second) = entries.split_at(entries.len() / 2);
+    Ok(std::thread::scope(|scope| {
+        let other = scope.spawn(|| stat_all(second));
+        let mut files = stat_all(first);
+        // The helper cannot panic on file data; if it did, do its half here.
+        files.extend(other.join().unwrap_or_else(|_| stat_all(second)));
+        files
+    }))
+}
+
+/// The name of a note file entry (`*.md`, not hidden, UTF-8), from the
+/// directory listing alone.
+fn note_name(entry: &fs::DirEntry) -> Option<String> {
+    let name = entry.file_name().into_string().ok()?;
+    (!name.starts_with('.') && name.ends_with(".md")).then_some(name)
+}
+
+/// The listed note file with its size and time, or `None` for a folder, a
+/// dangling link or a file removed since it was listed. Reads the entry's
+/// metadata relative to the open folder (no path lookup); a symlink is
+/// followed, so a linked note counts like a real one.
+fn note_file(entry: &fs::DirEntry) -> Option<NoteFile> {
+    let name = note_name(entry)?;
+    let file_type = entry.file_type().ok()?;
+    let metadata = if file_type.is_symlink() {
+        fs::metadata(entry.path()).ok()?
+    } else {
+        entry.metadata().ok()?
+    };
+    if !metadata.is_file() {
+        return None;
+    }
+    let mtime_ns = metadata
+        .modified()
+        .ok()
+        .and_then(|t| t.duration_since(UNIX_EPOCH).ok())
+        .map_or(0, |d| d.as_nanos());
+    Some(NoteFile {
+        mtime_ns,
+        name,
+        size: metadata.len(),
+    })
 }
 
 #[cfg(test)]

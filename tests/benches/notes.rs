@@ -12,9 +12,14 @@ use std::path::{Path, PathBuf};
 use std::process::Command;
 use std::time::{Duration, Instant};
 
-use spoolsleuth::index::{IndexLocation, NoteIndex};
+use spoolsleuth::cli::render_results;
+use spoolsleuth::index::{
+    read_manifest_bytes, register_index_analyzers, IndexLocation, ManifestView, NoteIndex,
+};
 use spoolsleuth::notes::{NotesFolder, CAUSE_IDS, SYMPTOM_IDS};
-use spoolsleuth::search::{search, SearchRequest};
+use spoolsleuth::search::{search, QueryBuilder, SearchRequest};
+use tantivy::collector::{Count, TopDocs};
+use tantivy::{Index, ReloadPolicy};
 
 /// Deterministic xorshift64* generator: the same notes on every run.
 struct Rng(u64);
@@ -208,6 +213,7 @@ fn run(count: usize, root: &Path, binary: &Path) {
     }
     let cli_p50 = percentile(&mut cli, 0.5);
     println!("| query via CLI binary (warm), p50 / p95 | {} / {} | includes checking all {count} files for changes |", ms(cli_p50), ms(percentile(&mut cli, 0.95)));
+    breakdown(binary, &notes, &index_dir, &queries);
 
     let mut grep = Vec::new();
     for query in queries.iter().take(5) {
@@ -275,6 +281,106 @@ fn run(count: usize, root: &Path, binary: &Path) {
         "| notes / index size on disk | {} MB / {} MB | |",
         text / 1_000_000,
         size / 1_000_000
+    );
+}
+
+/// p50 of `runs` timings of `job`.
+fn p50_of(runs: usize, mut job: impl FnMut()) -> Duration {
+    let mut samples: Vec<Duration> = (0..runs)
+        .map(|_| {
+            let started = Instant::now();
+            job();
+            started.elapsed()
+        })
+        .collect();
+    percentile(&mut samples, 0.5)
+}
+
+/// Where the time of one CLI search goes, phase by phase (each p50, warm),
+/// through the same library calls the binary makes.
+fn breakdown(binary: &Path, notes: &Path, index_dir: &Path, queries: &[String]) {
+    let folder = NotesFolder::Disk(notes.to_path_buf());
+    let row = |what: &str, d: Duration| println!("| breakdown: {what} | {} | p50 |", ms(d));
+    row(
+        "process start + exit (`--version`)",
+        p50_of(20, || {
+            let status = Command::new(binary).arg("--version").output().unwrap();
+            assert!(status.status.success());
+        }),
+    );
+    row(
+        "list notes with size and time",
+        p50_of(10, || assert!(!folder.scan().unwrap().is_empty())),
+    );
+    row(
+        "read + parse manifest",
+        p50_of(10, || {
+            let bytes = read_manifest_bytes(index_dir).unwrap();
+            assert!(!ManifestView::parse(&bytes).unwrap().notes.is_empty());
+        }),
+    );
+    row(
+        "open index (mmap)",
+        p50_of(20, || drop(Index::open_in_dir(index_dir).unwrap())),
+    );
+    let index = Index::open_in_dir(index_dir).unwrap();
+    row(
+        "register analyzers",
+        p50_of(20, || register_index_analyzers(&index)),
+    );
+    row(
+        "open reader",
+        p50_of(20, || {
+            let reader = index
+                .reader_builder()
+                .reload_policy(ReloadPolicy::Manual)
+                .try_into()
+                .unwrap();
+            drop::<tantivy::IndexReader>(reader);
+        }),
+    );
+    row(
+        "whole open + freshness check (NoteIndex::open)",
+        p50_of(10, || {
+            let (_, report) =
+                NoteIndex::open(folder.clone(), &IndexLocation::Dir(index_dir.to_path_buf()))
+                    .unwrap();
+            assert_eq!(report.added + report.updated + report.removed, 0);
+        }),
+    );
+    let (mut note_index, _) =
+        NoteIndex::open(folder.clone(), &IndexLocation::Dir(index_dir.to_path_buf())).unwrap();
+    let mut i = 0;
+    row(
+        "query alone (parse, typo check, top 10 + count)",
+        p50_of(queries.len() * 3, || {
+            let searcher = note_index.searcher();
+            let request = SearchRequest::new(queries[i % queries.len()].clone());
+            i += 1;
+            let built = QueryBuilder::new(&searcher, note_index.schema())
+                .build(&request)
+                .unwrap();
+            let (top, _) = searcher
+                .search(
+                    &built.query,
+                    &(TopDocs::with_limit(10).order_by_score(), Count),
+                )
+                .unwrap();
+            assert!(!top.is_empty());
+        }),
+    );
+    row(
+        "query + stored notes + snippets (search)",
+        p50_of(queries.len() * 3, || {
+            let request = SearchRequest::new(queries[i % queries.len()].clone());
+            i += 1;
+            assert!(!search(&mut note_index, &request).unwrap().hits.is_empty());
+        }),
+    );
+    let results = search(&mut note_index, &SearchRequest::new(queries[0].clone())).unwrap();
+    row(
+        "table rendering",
+        p50_of(20, || assert!(!render_results(&results, false).is_empty())),
     );
 }
 
