@@ -819,28 +819,9 @@ fn a_note_is_added_straight_from_a_diagnosis() {
         .current_dir(dir.path())
         .env("NO_COLOR", "1")
         .env_remove("SPOOLSLEUTH_CASES")
-        .args([
-            "diagnose",
-            "--machine",
-            "press-4",
-            "--complaint",
-            "bogs down under load",
-            "--reading",
-            "supply_pressure@unloaded=150 bar",
-            "--reading",
-            "inter_pressure@unloaded=38 bar",
-            "--reading",
-            "load_pressure@unloaded=30 bar",
-            "--reading",
-            "supply_pressure@loaded=185 bar",
-            "--reading",
-            "inter_pressure@loaded=143.5 bar",
-            "--reading",
-            "load_pressure@loaded=140 bar",
-            "--index-dir",
-            "index",
-            "--json",
-        ])
+        .arg("diagnose")
+        .args(spoolsleuth::diagnosis::DEMO_CALL.arguments())
+        .args(["--index-dir", "index", "--json"])
         .output()
         .unwrap();
     assert_eq!(diagnose.status.code(), Some(0));
@@ -871,7 +852,7 @@ fn a_note_is_added_straight_from_a_diagnosis() {
     let text = std::fs::read_to_string(file).unwrap();
     for line in [
         "machine: press-4",
-        "title: bogs down under load",
+        "title: platen slows right down and bogs when it closes on the panel",
         "- speed-sags-under-load",
         "cause: compensator-sticking",
         "  inter_pressure@loaded: 143.5 bar",

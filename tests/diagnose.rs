@@ -1325,36 +1325,13 @@ const MARKDOWN_REPORT: &str = r#"# Diagnosis: ad-hoc circuit (no machine profile
 mod report_files {
     use assert_cmd::Command;
 
-    const CALL: &[&str] = &[
-        "diagnose",
-        "--machine",
-        "press-4",
-        "--complaint",
-        "bogs down under load",
-        "--reading",
-        "supply_pressure@unloaded=150 bar",
-        "--reading",
-        "inter_pressure@unloaded=38 bar",
-        "--reading",
-        "load_pressure@unloaded=30 bar",
-        "--reading",
-        "flow@unloaded=20 L/min",
-        "--reading",
-        "supply_pressure@loaded=185 bar",
-        "--reading",
-        "inter_pressure@loaded=143.5 bar",
-        "--reading",
-        "load_pressure@loaded=140 bar",
-        "--reading",
-        "flow@loaded=14.2 L/min",
-    ];
-
     fn run(dir: &std::path::Path, report: &str) -> std::process::Output {
         Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
             .current_dir(dir)
             .env("NO_COLOR", "1")
             .env_remove("SPOOLSLEUTH_CASES")
-            .args(CALL)
+            .arg("diagnose")
+            .args(spoolsleuth::diagnosis::DEMO_CALL.arguments())
             .args(["--index-dir", "index", "--report", report])
             .output()
             .unwrap()

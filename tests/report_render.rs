@@ -13,7 +13,7 @@ use std::time::{Duration, Instant};
 use spoolsleuth::chart::{
     points_from_diagnosis, render_svg, ValveCurve, ValveModel, PLOT_BACKGROUND,
 };
-use spoolsleuth::diagnosis::{Diagnosis, DiagnosisInput};
+use spoolsleuth::diagnosis::{Diagnosis, DEMO_CALL};
 use spoolsleuth::machine::MachineSet;
 use spoolsleuth::report::render_html;
 use spoolsleuth::rules::RuleBase;
@@ -40,27 +40,8 @@ fn chromium() -> Option<&'static Path> {
 
 /// The demo breakdown call on press-4, diagnosed with the built-in rule base.
 fn fixed_diagnosis(base: &RuleBase) -> Diagnosis {
-    let machine = MachineSet::load(None)
-        .unwrap()
-        .get("press-4")
-        .unwrap()
-        .profile
-        .clone();
-    let mut input = DiagnosisInput::for_machine(machine);
-    input.complaint = Some("platen slows right down and bogs when it closes on the panel".into());
-    input.readings = [
-        ("supply_pressure@unloaded", "150 bar"),
-        ("inter_pressure@unloaded", "38 bar"),
-        ("load_pressure@unloaded", "30 bar"),
-        ("flow@unloaded", "20 L/min"),
-        ("supply_pressure@loaded", "185 bar"),
-        ("inter_pressure@loaded", "143.5 bar"),
-        ("load_pressure@loaded", "140 bar"),
-        ("flow@loaded", "14.2 L/min"),
-    ]
-    .iter()
-    .map(|(n, v)| (n.to_string(), v.to_string()))
-    .collect();
+    let machines = MachineSet::load(None).unwrap();
+    let input = DEMO_CALL.input(&machines).unwrap();
     Diagnosis::run(base, &input).unwrap()
 }
 

@@ -6,28 +6,13 @@
 
 use super::context::Context;
 use super::diagnose_command::{diagnose, text_style};
-use crate::diagnosis::DiagnosisInput;
+use crate::diagnosis::DEMO_CALL;
 use crate::error::{Error, ExitStatus};
 use crate::machine::{nameplate_settles, MachineSet};
 use crate::notes::NotesFolder;
 use crate::output::{self, table};
 use crate::report::{render, ReportFormat};
 use crate::rules::RuleBase;
-
-/// The demo breakdown call: a machine, the technician's words, and the
-/// readings taken (two operating points, in the machine's own units).
-const MACHINE: &str = "press-4";
-const COMPLAINT: &str = "platen slows right down and bogs when it closes on the panel";
-const READINGS: &[(&str, &str)] = &[
-    ("supply_pressure@unloaded", "150 bar"),
-    ("inter_pressure@unloaded", "38 bar"),
-    ("load_pressure@unloaded", "30 bar"),
-    ("flow@unloaded", "20 L/min"),
-    ("supply_pressure@loaded", "185 bar"),
-    ("inter_pressure@loaded", "143.5 bar"),
-    ("load_pressure@loaded", "140 bar"),
-    ("flow@loaded", "14.2 L/min"),
-];
 
 /// Run the demo.
 pub fn execute(context: &Context) -> Result<ExitStatus, Error> {
@@ -78,14 +63,8 @@ fn breakdown_call(
     base: &RuleBase,
     machines: &MachineSet,
 ) -> Result<String, Error> {
-    let machine = machines.get(MACHINE)?.profile.clone();
-    let mut input = DiagnosisInput::for_machine(machine);
+    let mut input = DEMO_CALL.input(machines)?;
     input.units = context.units_for(input.units);
-    input.complaint = Some(COMPLAINT.to_string());
-    input.readings = READINGS
-        .iter()
-        .map(|(n, v)| ((*n).to_string(), (*v).to_string()))
-        .collect();
     let diagnosis = diagnose(base, input, NotesFolder::Embedded, None)?;
     let report = render(
         &diagnosis,
@@ -93,15 +72,18 @@ fn breakdown_call(
         text_style(context, ReportFormat::Table),
     )?;
     Ok(format!(
-        "\nA breakdown call on {MACHINE}: the technician's words and readings, diagnosed\n\n{report}"
+        "\nA breakdown call on {}: the technician's words and readings, diagnosed\n\n{report}",
+        DEMO_CALL.machine
     ))
 }
 
 /// The command line that runs the same call by hand.
 fn by_hand() -> String {
-    let mut line =
-        format!("spoolsleuth diagnose --machine {MACHINE} \\\n  --complaint \"{COMPLAINT}\"");
-    for (name, value) in READINGS {
+    let mut line = format!(
+        "spoolsleuth diagnose --machine {} \\\n  --complaint \"{}\"",
+        DEMO_CALL.machine, DEMO_CALL.complaint
+    );
+    for (name, value) in DEMO_CALL.readings {
         line.push_str(&format!(" \\\n  --reading {name}=\"{value}\""));
     }
     format!("\nTo run the same call by hand:\n\n{line}\n")

@@ -420,7 +420,7 @@ fn cautions(
 #[cfg(test)]
 mod tests {
     use super::*;
-    use crate::diagnosis::CauseStatus;
+    use crate::diagnosis::{CauseStatus, DEMO_CALL};
     use crate::machine::MachineSet;
 
     fn press(readings: &[(&str, &str)], complaint: &str) -> Diagnosis {
@@ -440,18 +440,12 @@ mod tests {
         Diagnosis::run(&base, &input).unwrap()
     }
 
-    const STICKING: &[(&str, &str)] = &[
-        ("supply_pressure@unloaded", "150 bar"),
-        ("inter_pressure@unloaded", "38 bar"),
-        ("load_pressure@unloaded", "30 bar"),
-        ("supply_pressure@loaded", "185 bar"),
-        ("inter_pressure@loaded", "143.5 bar"),
-        ("load_pressure@loaded", "140 bar"),
-    ];
-
     #[test]
     fn a_drop_that_collapses_with_headroom_to_spare_is_the_compensator() {
-        let d = press(STICKING, "it bogs down when it closes on the panel");
+        let d = press(
+            DEMO_CALL.readings,
+            "it bogs down when it closes on the panel",
+        );
         assert_eq!(d.causes[0].cause, "compensator-sticking");
         assert_eq!(d.causes[0].status, CauseStatus::Confirmed);
         let headroom = d
@@ -490,7 +484,7 @@ mod tests {
 
     #[test]
     fn two_readings_of_one_gauge_that_disagree_are_reported() {
-        let mut readings = STICKING.to_vec();
+        let mut readings = DEMO_CALL.readings.to_vec();
         readings.push(("supply_pressure@loaded", "1500 psi"));
         let d = press(&readings, "slows down under load");
         assert!(

@@ -4,6 +4,7 @@
 
 mod cause_assessment;
 mod cause_status;
+mod demo_call;
 #[allow(clippy::module_inception)]
 mod diagnosis;
 mod diagnosis_error;
@@ -14,6 +15,7 @@ mod reading_view;
 
 pub use cause_assessment::{CauseAssessment, EvidenceLine};
 pub use cause_status::CauseStatus;
+pub use demo_call::{DemoCall, DEMO_CALL};
 pub use diagnosis::{
     CautionView, ConsistencyProblem, Diagnosis, FixView, MachineView, PastCase, SymptomView,
     IMPOSSIBLE_READINGS, SCHEMA_VERSION,

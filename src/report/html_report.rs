@@ -490,38 +490,16 @@ mod tests {
 
     use super::*;
     use crate::chart::{points_from_diagnosis, render_svg, ChartFrame, ValveCurve, ValveModel};
-    use crate::diagnosis::{DiagnosisInput, PastCase};
+    use crate::diagnosis::{PastCase, DEMO_CALL};
     use crate::machine::MachineSet;
     use crate::rules::RuleBase;
     use crate::units::UnitSystem;
 
-    /// The demo breakdown call on press-4: the drop across the orifice collapses
-    /// under load with headroom to spare.
-    const READINGS: &[(&str, &str)] = &[
-        ("supply_pressure@unloaded", "150 bar"),
-        ("inter_pressure@unloaded", "38 bar"),
-        ("load_pressure@unloaded", "30 bar"),
-        ("flow@unloaded", "20 L/min"),
-        ("supply_pressure@loaded", "185 bar"),
-        ("inter_pressure@loaded", "143.5 bar"),
-        ("load_pressure@loaded", "140 bar"),
-        ("flow@loaded", "14.2 L/min"),
-    ];
-
     fn diagnosis(complaint: &str) -> Diagnosis {
         let base = RuleBase::load(&[]).unwrap();
-        let machine = MachineSet::load(None)
-            .unwrap()
-            .get("press-4")
-            .unwrap()
-            .profile
-            .clone();
-        let mut input = DiagnosisInput::for_machine(machine);
+        let machines = MachineSet::load(None).unwrap();
+        let mut input = DEMO_CALL.input(&machines).unwrap();
         input.complaint = Some(complaint.to_string());
-        input.readings = READINGS
-            .iter()
-            .map(|(n, v)| (n.to_string(), v.to_string()))
-            .collect();
         Diagnosis::run(&base, &input).unwrap()
     }
 
