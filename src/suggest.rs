@@ -3,7 +3,7 @@
 /// The candidate nearest to `word`, if one is near enough to be a likely
 /// misspelling: a case-insensitive match first, then the smallest
 /// Damerau–Levenshtein distance within a third of the word's length (at
-/// least 1, at most 3).
+/// least 1, at most 4).
 pub fn suggest<'a, I>(word: &str, candidates: I) -> Option<&'a str>
 where
     I: IntoIterator<Item = &'a str>,
@@ -15,7 +15,7 @@ where
     {
         return Some(exact);
     }
-    let limit = (word.chars().count() / 3).clamp(1, 3);
+    let limit = (word.chars().count() / 3).clamp(1, 4);
     candidates
         .iter()
         .map(|c| {

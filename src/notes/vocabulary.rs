@@ -44,18 +44,13 @@ pub const CAUSE_IDS: &[&str] = &[
     "trapped-oil-thermal",
 ];
 
-/// The candidate closest to `word`, if it is close enough to be a likely typo.
+/// The candidate closest to `word`, if it is close enough to be a likely
+/// typo (the crate's one suggestion rule, [`crate::suggest::suggest`]).
 pub fn nearest<'a, I>(word: &str, candidates: I) -> Option<&'a str>
 where
     I: IntoIterator<Item = &'a str>,
 {
-    let word = word.to_lowercase();
-    candidates
-        .into_iter()
-        .map(|candidate| (strsim::damerau_levenshtein(&word, candidate), candidate))
-        .filter(|(distance, candidate)| *distance <= (candidate.len() / 3).max(2))
-        .min_by_key(|(distance, _)| *distance)
-        .map(|(_, candidate)| candidate)
+    crate::suggest::suggest(word, candidates)
 }
 
 #[cfg(test)]
