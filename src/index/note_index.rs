@@ -116,7 +116,13 @@ impl NoteIndex {
             .map_err(|e| tantivy(memory, e))?;
         let mut report = SyncReport::default();
         for file in &files {
-            let text = folder.read(&file.name)?;
+            let text = match folder.read(&file.name) {
+                Ok(text) => text,
+                Err(unreadable) => {
+                    report.broken.push(unreadable.to_string());
+                    continue;
+                }
+            };
             match Note::parse(Path::new(&file.name), &text) {
                 Ok(note) => {
                     writer
@@ -179,10 +185,28 @@ impl NoteIndex {
             manifest.entries.remove(name);
             report.removed += 1;
         }
+        let mut unreadable = Vec::new();
         for file in &change.changed {
-            let text = self.folder.read(&file.name)?;
-            let hash = content_hash(text.as_bytes());
             let known = manifest.entries.get(&file.name);
+            let text = match self.folder.read(&file.name) {
+                Ok(text) => text,
+                Err(error) => {
+                    // Left out of the manifest so that it is tried again next
+                    // time (a permission fixed, a file cut down to size).
+                    if known.is_some() {
+                        let writer = self.writer(&mut writer, &dir)?;
+                        writer.delete_term(Term::from_field_text(
+                            self.schema.id,
+                            &name_to_id(&file.name),
+                        ));
+                        manifest.entries.remove(&file.name);
+                        report.removed += 1;
+                    }
+                    unreadable.push(error.to_string());
+                    continue;
+                }
+            };
+            let hash = content_hash(text.as_bytes());
             let entry = |broken| ManifestEntry {
                 broken,
                 hash,
@@ -229,6 +253,7 @@ impl NoteIndex {
             manifest.save(&dir)?;
         }
         report.broken = broken_of(&self.folder, &manifest);
+        report.broken.extend(unreadable);
         Ok((self, report))
     }
 
@@ -272,8 +297,17 @@ impl NoteIndex {
             rebuilt: Some(reason),
             ..SyncReport::default()
         };
+        let mut unreadable = Vec::new();
         for file in &files {
-            let text = folder.read(&file.name)?;
+            let text = match folder.read(&file.name) {
+                Ok(text) => text,
+                Err(error) => {
+                    // Not in the manifest: tried again on the next search.
+                    unreadable.push(error.to_string());
+                    progress.inc(1);
+                    continue;
+                }
+            };
             let broken = match Note::parse(Path::new(&file.name), &text) {
                 Ok(note) => {
                     writer
@@ -300,6 +334,7 @@ impl NoteIndex {
         manifest.save(dir)?;
         progress.finish_and_clear();
         report.broken = broken_of(&folder, &manifest);
+        report.broken.extend(unreadable);
         let reader = manual_reader(&index).map_err(|e| tantivy(dir, e))?;
         Ok((
             NoteIndex {
