@@ -108,6 +108,16 @@ fn search_notes(
     index_dir: Option<PathBuf>,
     arguments: &SearchArguments,
 ) -> Result<ExitStatus, Error> {
+    if let (Some(since), Some(until)) = (arguments.since, arguments.until) {
+        // Swapped dates would read as "nothing found" (exit 1), as if the
+        // notes held no such case.
+        if since > until {
+            return Err(Error::Input {
+                option: "--since".into(),
+                message: format!("{since} is after --until {until}: no date can be in both"),
+            });
+        }
+    }
     let mut index = open_index(folder, index_dir)?;
     let request = SearchRequest {
         cause: arguments.cause.clone(),
