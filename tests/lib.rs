@@ -1,4 +1,5 @@
 //! Integration tests: each module runs the real binary on data the test owns.
+mod bad_input;
 mod calc;
 mod cases;
 mod chart;
