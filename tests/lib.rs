@@ -5,6 +5,7 @@ mod cases;
 mod chart;
 mod demo;
 mod diagnose;
+mod faults;
 mod guide;
 mod machine;
 mod report_render;
