@@ -10,3 +10,4 @@ mod guide;
 mod machine;
 mod report_render;
 mod rules;
+mod safety;
