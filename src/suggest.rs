@@ -30,6 +30,19 @@ where
         .map(|(_, c)| c)
 }
 
+/// For serde's "unknown field `x`, expected one of `a`, `b`" (or "unknown
+/// value"), name the nearest instead of listing them all; `None` when the
+/// marker is not in `text` or nothing is near.
+pub fn suggest_in_message(text: &str, marker: &str) -> Option<String> {
+    let start = text.find(marker)?;
+    let (prefix, rest) = text.split_at(start);
+    let rest = rest.strip_prefix(marker)?;
+    let (name, expected) = rest.split_once('`')?;
+    let names: Vec<&str> = expected.split('`').skip(1).step_by(2).collect();
+    let near = suggest(name, names.iter().copied())?;
+    Some(format!("{prefix}{marker}{name}` (did you mean `{near}`?)"))
+}
+
 fn same_letters(a: &str, b: &str) -> bool {
     let sorted = |s: &str| {
         let mut v: Vec<char> = s.to_lowercase().chars().collect();

@@ -11,7 +11,7 @@ use super::cases_arguments::{
     AddArguments, CasesArguments, CasesCommand, SearchArguments, ShowArguments, StatsArguments,
 };
 use crate::error::{Error, ExitStatus};
-use crate::index::{IndexLocation, NoteIndex, SyncReport};
+use crate::index::{IndexError, IndexLocation, NoteIndex, SyncReport};
 use crate::notes::{Downtime, DraftOrigin, Note, NoteDraft, NoteEditor, NotesError, NotesFolder};
 use crate::search::{search, CaseStats, CauseCount, HighlightStyle, SearchRequest, SearchResults};
 
@@ -85,7 +85,18 @@ fn add_note(folder: &NotesFolder, add: AddArguments) -> Result<ExitStatus, Error
 
 fn open_index(folder: NotesFolder, index_dir: Option<PathBuf>) -> Result<NoteIndex, Error> {
     let location = IndexLocation::resolve(&folder, index_dir.as_deref())?;
-    let (index, report) = NoteIndex::open(folder, &location)?;
+    let (index, report) = match NoteIndex::open(folder.clone(), &location) {
+        Ok(opened) => opened,
+        // The index is only derived data: when its folder cannot be written
+        // (read-only, full) the notes are still searched, from memory.
+        Err(error @ (IndexError::Io { .. } | IndexError::Tantivy { .. })) => {
+            eprintln!(
+                "warning: cannot keep the search index: {error}; searching the notes without it"
+            );
+            NoteIndex::open(folder, &IndexLocation::Memory)?
+        }
+        Err(error) => return Err(error.into()),
+    };
     report_sync(&report);
     Ok(index)
 }
@@ -108,6 +119,16 @@ fn search_notes(
     index_dir: Option<PathBuf>,
     arguments: &SearchArguments,
 ) -> Result<ExitStatus, Error> {
+    if let (Some(since), Some(until)) = (arguments.since, arguments.until) {
+        // Swapped dates would read as "nothing found" (exit 1), as if the
+        // notes held no such case.
+        if since > until {
+            return Err(Error::Input {
+                option: "--since".into(),
+                message: format!("{since} is after --until {until}: no date can be in both"),
+            });
+        }
+    }
     let mut index = open_index(folder, index_dir)?;
     let request = SearchRequest {
         cause: arguments.cause.clone(),

@@ -25,6 +25,10 @@ pub fn execute(context: &Context, arguments: GuideArguments) -> Result<ExitStatu
             .map(|c| c.join("machines"))
             .as_deref(),
     )?;
+    if let Some(id) = arguments.machine.as_deref().filter(|id| *id != "none") {
+        // Checked before the first answer is saved to the session.
+        machines.get(id)?;
+    }
     let mut guide = Guide::new(&base, &machines, context.units_given);
     let session_path = arguments
         .session
@@ -48,17 +52,28 @@ pub fn execute(context: &Context, arguments: GuideArguments) -> Result<ExitStatu
     };
     let mut machine_option = arguments.machine.clone();
     while let Some(question) = guide.question() {
-        let answer = match (question.id, machine_option.take()) {
-            ("machine", Some(id)) => id,
-            _ => {
+        let option = (question.id == "machine")
+            .then(|| machine_option.take())
+            .flatten();
+        let (answer, from_option) = match option {
+            Some(id) => (id, true),
+            None => {
                 ask(&question, interactive);
-                match read_line(&mut input)? {
-                    Some(line) => line,
+                match read_line(&mut input).map_err(|e| input_error(&arguments, e))? {
+                    Some(line) => (line, false),
                     None => return Ok(stopped(&session, &session_path)),
                 }
             }
         };
         match guide.answer(&answer) {
+            // A wrong --machine would otherwise be asked again and take the
+            // next line of an answers file, shifting every answer after it.
+            Err(message) if from_option => {
+                return Err(Error::Input {
+                    option: "--machine".into(),
+                    message,
+                })
+            }
             Ok(step) => {
                 if !step.lines.is_empty() {
                     output::print(&step.lines.join("\n"))?;
@@ -120,7 +135,21 @@ fn ask(question: &Question, interactive: bool) {
     let _ = err.flush();
 }
 
-fn read_line(input: &mut dyn BufRead) -> Result<Option<String>, Error> {
+/// A failure to read an answer, naming the answers file when there is one.
+fn input_error(arguments: &GuideArguments, error: std::io::Error) -> Error {
+    match &arguments.answers {
+        Some(path) => Error::Input {
+            option: "--answers".into(),
+            message: format!("{}: cannot read: {error}", path.display()),
+        },
+        None => Error::Input {
+            option: "standard input".into(),
+            message: format!("cannot read: {error}"),
+        },
+    }
+}
+
+fn read_line(input: &mut dyn BufRead) -> std::io::Result<Option<String>> {
     let mut line = String::new();
     if input.read_line(&mut line)? == 0 {
         return Ok(None);

@@ -29,6 +29,19 @@ pub fn report_kind(path: &Path) -> Result<ReportKind, Error> {
         .and_then(|e| e.to_str())
         .map(str::to_ascii_lowercase)
         .unwrap_or_default();
+    let folder = report_folder(path);
+    if !folder.is_dir() {
+        // Checked before the diagnosis runs, so a typo in the folder does not
+        // print a verdict and then fail.
+        return Err(Error::Input {
+            option: "--report".into(),
+            message: format!(
+                "`{}`: there is no folder `{}` to write it in",
+                path.display(),
+                folder.display()
+            ),
+        });
+    }
     match ext.as_str() {
         "html" | "htm" => Ok(ReportKind::Html),
         "md" | "markdown" => Ok(ReportKind::Markdown),
@@ -42,6 +55,13 @@ pub fn report_kind(path: &Path) -> Result<ReportKind, Error> {
     }
 }
 
+/// The folder a report is written in.
+fn report_folder(path: &Path) -> &Path {
+    path.parent()
+        .filter(|p| !p.as_os_str().is_empty())
+        .unwrap_or(Path::new("."))
+}
+
 /// Write the report for `diagnosis` to `path` (`.html`, `.htm` or `.md`).
 pub fn write_report(path: &Path, diagnosis: &Diagnosis, base: &RuleBase) -> Result<(), Error> {
     let text = match report_kind(path)? {
@@ -52,11 +72,7 @@ pub fn write_report(path: &Path, diagnosis: &Diagnosis, base: &RuleBase) -> Resu
         option: "--report".into(),
         message: format!("{}: {e}", path.display()),
     };
-    let dir = path
-        .parent()
-        .filter(|p| !p.as_os_str().is_empty())
-        .unwrap_or(Path::new("."));
-    let mut tmp = tempfile::NamedTempFile::new_in(dir).map_err(io)?;
+    let mut tmp = tempfile::NamedTempFile::new_in(report_folder(path)).map_err(io)?;
     tmp.write_all(text.as_bytes()).map_err(io)?;
     readable_by_all(tmp.as_file()).map_err(io)?;
     tmp.persist(path).map_err(|e| io(e.error))?;

@@ -131,7 +131,13 @@ impl NoteIndex {
             .map_err(|e| tantivy(memory, e))?;
         let mut report = SyncReport::default();
         for file in &files {
-            let text = folder.read(&file.name)?;
+            let text = match folder.read(&file.name) {
+                Ok(text) => text,
+                Err(unreadable) => {
+                    report.broken.push(unreadable.to_string());
+                    continue;
+                }
+            };
             match Note::parse(Path::new(&file.name), &text) {
                 Ok(note) => {
                     writer
@@ -204,20 +210,35 @@ impl NoteIndex {
         let mut writer: Option<IndexWriter> = None;
         let change = changes(&manifest, files);
         let mut removed = change.removed;
+        let mut unreadable = Vec::new();
         for file in &change.changed {
+            let known = manifest.entries.get(&file.name);
             let text = match self.folder.read(&file.name) {
                 Ok(text) => text,
                 // Deleted since it was listed: drop it like any deleted note.
                 Err(NotesError::Io { source, .. }) if source.kind() == ErrorKind::NotFound => {
-                    if manifest.entries.contains_key(&file.name) {
+                    if known.is_some() {
                         removed.push(file.name.clone());
                     }
                     continue;
                 }
-                Err(error) => return Err(error.into()),
+                Err(error) => {
+                    // Left out of the manifest so that it is tried again next
+                    // time (a permission fixed, a file cut down to size).
+                    if known.is_some() {
+                        let writer = self.writer(&mut writer, &dir)?;
+                        writer.delete_term(Term::from_field_text(
+                            self.schema.id,
+                            &name_to_id(&file.name),
+                        ));
+                        manifest.entries.remove(&file.name);
+                        report.removed += 1;
+                    }
+                    unreadable.push(error.to_string());
+                    continue;
+                }
             };
             let hash = content_hash(text.as_bytes());
-            let known = manifest.entries.get(&file.name);
             let entry = |broken| ManifestEntry {
                 broken,
                 hash,
@@ -276,6 +297,7 @@ impl NoteIndex {
                 .values()
                 .filter_map(|e| e.broken.as_deref()),
         );
+        report.broken.extend(unreadable);
         Ok((self, report))
     }
 
@@ -322,14 +344,22 @@ impl NoteIndex {
             rebuilt: Some(reason),
             ..SyncReport::default()
         };
+        let mut unreadable = Vec::new();
         folder.for_each_file(|file| -> IndexResult<()> {
             let text = match folder.read(&file.name) {
                 Ok(text) => text,
                 // Deleted since it was listed: nothing to index.
                 Err(NotesError::Io { source, .. }) if source.kind() == ErrorKind::NotFound => {
-                    return Ok(())
+                    progress.inc(1);
+                    return Ok(());
                 }
-                Err(error) => return Err(error.into()),
+                // Unreadable, binary or too big: left out of the manifest, so it
+                // is tried again on the next search.
+                Err(error) => {
+                    unreadable.push(error.to_string());
+                    progress.inc(1);
+                    return Ok(());
+                }
             };
             let problem = match Note::parse(Path::new(&file.name), &text) {
                 Ok(note) => {
@@ -362,6 +392,7 @@ impl NoteIndex {
         progress.finish_and_clear();
         broken.sort();
         report.broken = broken;
+        report.broken.extend(unreadable);
         let reader = manual_reader(&index).map_err(|e| tantivy(dir, e))?;
         Ok((
             NoteIndex {

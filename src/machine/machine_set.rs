@@ -92,11 +92,11 @@ pub fn parse(name: &str, text: &str) -> Result<MachineProfile, MachineError> {
             None => name.to_string(),
         };
         let message = e.to_string();
-        let message = message
-            .split(" at line ")
-            .next()
-            .unwrap_or(&message)
-            .to_string();
+        let message = message.split(" at line ").next().unwrap_or(&message);
+        let message = ["unknown field `", "unknown variant `"]
+            .iter()
+            .find_map(|marker| crate::suggest::suggest_in_message(message, marker))
+            .unwrap_or_else(|| message.to_string());
         MachineError::Invalid { at, message }
     })?;
     if profile.version != 1 {

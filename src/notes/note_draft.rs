@@ -94,6 +94,11 @@ impl NoteDraft {
                     .and_then(scalar_text)
             })
             .or_else(|| leading_of_diagnosis(object));
+        let readings = match object.get("readings") {
+            Some(value) => readings_of(value)
+                .map_err(|message| json_error(format!("field 'readings': {message}")))?,
+            None => Vec::new(),
+        };
         Ok(NoteDraft {
             cause,
             date: text_of(&["date"]),
@@ -101,7 +106,7 @@ impl NoteDraft {
             fix: text_of(&["fix"]),
             machine: text_of(&["machine"]),
             parts: object.get("parts").map(list_of).unwrap_or_default(),
-            readings: object.get("readings").map(readings_of).unwrap_or_default(),
+            readings,
             symptoms: object.get("symptoms").map(list_of).unwrap_or_default(),
             technician: text_of(&["tech", "technician"]),
             text: text_of(&["notes", "text"]),
@@ -290,35 +295,51 @@ fn list_of(value: &Value) -> Vec<String> {
     }
 }
 
-/// Readings as `{"supply": "1450 psi"}`, `["supply: 1450 psi"]` or
-/// `[{"name": "supply", "value": 1450, "unit": "psi"}]`.
-fn readings_of(value: &Value) -> Vec<String> {
+/// Readings as `{"supply": "1450 psi"}`, `["supply: 1450 psi"]`,
+/// `[{"name": "supply", "value": 1450, "unit": "psi"}]` or a diagnosis's own
+/// `[{"name": "supply_pressure@loaded", "shown": "1450 psi", ...}]`. A reading
+/// that cannot be taken in is an error: dropping it would lose it from the note.
+fn readings_of(value: &Value) -> Result<Vec<String>, String> {
     match value {
+        Value::Null => Ok(Vec::new()),
         Value::Object(map) => map
             .iter()
-            .filter_map(|(name, v)| Some(format!("{name}: {}", scalar_text(v)?)))
+            .map(|(name, v)| {
+                scalar_text(v)
+                    .map(|text| format!("{name}: {text}"))
+                    .ok_or_else(|| format!("reading '{name}' has no value"))
+            })
             .collect(),
         Value::Array(items) => items
             .iter()
-            .filter_map(|item| {
-                scalar_text(item).or_else(|| {
-                    let name = item.get("name").and_then(scalar_text)?;
-                    // `diagnose --json` readings carry the value as printed.
-                    if let Some(shown) = item.get("shown").and_then(scalar_text) {
-                        return Some(format!("{name}: {shown}"));
-                    }
-                    let value = item.get("value").and_then(scalar_text)?;
-                    let unit = item
-                        .get("unit")
-                        .and_then(scalar_text)
-                        .map(|u| format!(" {u}"))
-                        .unwrap_or_default();
-                    Some(format!("{name}: {value}{unit}"))
+            .enumerate()
+            .map(|(n, item)| {
+                reading_item(item).ok_or_else(|| {
+                    format!(
+                        "entry {} is neither 'name: value' text nor an object with a name and a value",
+                        n + 1
+                    )
                 })
             })
             .collect(),
-        _ => Vec::new(),
+        _ => Err("expected an object of name to value, or a list".into()),
     }
+}
+
+fn reading_item(item: &Value) -> Option<String> {
+    scalar_text(item).or_else(|| {
+        let name = item.get("name").and_then(scalar_text)?;
+        let value = item
+            .get("value")
+            .or_else(|| item.get("shown"))
+            .and_then(scalar_text)?;
+        let unit = item
+            .get("unit")
+            .and_then(scalar_text)
+            .map(|u| format!(" {u}"))
+            .unwrap_or_default();
+        Some(format!("{name}: {value}{unit}"))
+    })
 }
 
 #[cfg(test)]

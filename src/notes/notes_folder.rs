@@ -3,7 +3,7 @@
 //! deletes an existing note.
 
 use std::fs;
-use std::io::Write;
+use std::io::{Read, Write};
 use std::path::{Path, PathBuf};
 use std::time::UNIX_EPOCH;
 
@@ -40,6 +40,11 @@ impl NoteFile {
 
 /// The display folder for the built-in notes.
 const EMBEDDED_PATH: &str = "cases/notes";
+
+/// The largest file read as a note. A case note is a page or two of text; a
+/// bigger `.md` file is something else (a log, an export) and reading it
+/// whole would swamp memory and bury the real notes in the results.
+pub const MAX_NOTE_BYTES: u64 = 1024 * 1024;
 
 impl NotesFolder {
     /// True for the read-only built-in demo notes.
@@ -122,19 +127,7 @@ impl NotesFolder {
                 .ok_or_else(|| {
                     NotesError::io(self.path_of(name), std::io::ErrorKind::NotFound.into())
                 }),
-            NotesFolder::Disk(dir) => {
-                let path = dir.join(name);
-                let bytes = fs::read(&path).map_err(|e| NotesError::io(&path, e))?;
-                String::from_utf8(bytes).map_err(|_| {
-                    NotesError::io(
-                        &path,
-                        std::io::Error::new(
-                            std::io::ErrorKind::InvalidData,
-                            "the note is not UTF-8 text",
-                        ),
-                    )
-                })
-            }
+            NotesFolder::Disk(dir) => read_note_file(&dir.join(name)),
         }
     }
 
@@ -194,6 +187,39 @@ impl NotesFolder {
             std::io::Error::other("no free note id left"),
         ))
     }
+}
+
+/// Read one note file: at most [`MAX_NOTE_BYTES`], UTF-8 text with no NUL
+/// byte (a NUL means a binary file saved under a `.md` name).
+fn read_note_file(path: &Path) -> NotesResult<String> {
+    let invalid = |message: String| {
+        NotesError::io(
+            path,
+            std::io::Error::new(std::io::ErrorKind::InvalidData, message),
+        )
+    };
+    let file = fs::File::open(path).map_err(|e| NotesError::io(path, e))?;
+    let mut bytes = Vec::new();
+    file.take(MAX_NOTE_BYTES + 1)
+        .read_to_end(&mut bytes)
+        .map_err(|e| NotesError::io(path, e))?;
+    if bytes.len() as u64 > MAX_NOTE_BYTES {
+        return Err(invalid(format!(
+            "the file is larger than {} MiB, too big for a case note",
+            MAX_NOTE_BYTES / (1024 * 1024)
+        )));
+    }
+    if let Some(at) = bytes.iter().position(|b| *b == 0) {
+        return Err(invalid(format!(
+            "the file holds a NUL byte (at byte {at}): it is not a text note"
+        )));
+    }
+    String::from_utf8(bytes).map_err(|e| {
+        invalid(format!(
+            "the file is not UTF-8 text (at byte {}); save it as UTF-8",
+            e.utf8_error().valid_up_to()
+        ))
+    })
 }
 
 fn embedded_files() -> impl Iterator<Item = NoteFile> {

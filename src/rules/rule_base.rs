@@ -981,24 +981,12 @@ fn schema_message(problem: &str) -> String {
         .replace("a sequence", "a list")
         .replace("sequence,", "a list,")
         .replace("unknown variant `", "unknown value `");
-    let text = suggest_name(&text, "unknown field `").unwrap_or(text);
-    let text = suggest_name(&text, "unknown value `").unwrap_or(text);
+    let text = crate::suggest::suggest_in_message(&text, "unknown field `").unwrap_or(text);
+    let text = crate::suggest::suggest_in_message(&text, "unknown value `").unwrap_or(text);
     if text.contains("missing field `version`") {
         return format!("{text} (a rule file starts with `version: 1`)");
     }
     text
-}
-
-/// For "unknown field `x`, expected one of `a`, `b`" (or "unknown value"),
-/// name the nearest instead of listing them all.
-fn suggest_name(text: &str, marker: &str) -> Option<String> {
-    let start = text.find(marker)?;
-    let (prefix, rest) = text.split_at(start);
-    let rest = rest.strip_prefix(marker)?;
-    let (name, expected) = rest.split_once('`')?;
-    let names: Vec<&str> = expected.split('`').skip(1).step_by(2).collect();
-    let near = crate::suggest::suggest(name, names.iter().copied())?;
-    Some(format!("{prefix}{marker}{name}` (did you mean `{near}`?)"))
 }
 
 /// The default rule files, named `rules/<file>`.

@@ -196,9 +196,15 @@ fn check_syntax(query: &str) -> SearchResult<()> {
                 .get(..pos)
                 .map_or(pos, |prefix| prefix.chars().count())
                 + 1;
+            let message = if error.message.starts_with("missing delimiter") {
+                // The parser's own words show an escaped quote: `missing delimiter \"`.
+                "a quoted phrase is never closed (add the closing quote)".to_string()
+            } else {
+                error.message.to_lowercase()
+            };
             Err(SearchError::Syntax {
                 column: Some(column),
-                message: error.message.to_lowercase(),
+                message,
             })
         }
     }
