@@ -10,6 +10,7 @@ use comfy_table::{presets, Cell, ContentArrangement, Table};
 use super::cases_arguments::{
     AddArguments, CasesArguments, CasesCommand, SearchArguments, ShowArguments, StatsArguments,
 };
+use super::context::Context;
 use crate::error::{Error, ExitStatus};
 use crate::index::{IndexError, IndexLocation, NoteIndex, SyncReport};
 use crate::notes::{Downtime, DraftOrigin, Note, NoteDraft, NoteEditor, NotesError, NotesFolder};
@@ -18,16 +19,22 @@ use crate::search::{search, CaseStats, CauseCount, HighlightStyle, SearchRequest
 /// Table width when stdout is not a terminal, so that snippets wrap.
 const PIPE_WIDTH: u16 = 120;
 
-/// Run a `cases` subcommand.
-pub fn execute(arguments: CasesArguments) -> Result<ExitStatus, Error> {
+/// Run a `cases` subcommand. Matched words are bold exactly when the
+/// global colour decision allows colour (`--color`, `NO_COLOR`, a terminal).
+pub fn execute(context: &Context, arguments: CasesArguments) -> Result<ExitStatus, Error> {
     let folder = arguments
         .cases
         .map_or(NotesFolder::Embedded, NotesFolder::Disk);
     let index_dir = arguments.index_dir;
+    let style = if context.color.enabled() {
+        HighlightStyle::Bold
+    } else {
+        HighlightStyle::Markers
+    };
     match arguments.command {
         CasesCommand::Add(add) => add_note(&folder, add),
-        CasesCommand::Search(search) => search_notes(folder, index_dir, &search),
-        CasesCommand::Show(show) => show_note(&folder, &show),
+        CasesCommand::Search(search) => search_notes(folder, index_dir, &search, style),
+        CasesCommand::Show(show) => show_note(&folder, &show, style),
         CasesCommand::Stats(stats) => show_stats(folder, index_dir, &stats),
     }
 }
@@ -118,6 +125,7 @@ fn search_notes(
     folder: NotesFolder,
     index_dir: Option<PathBuf>,
     arguments: &SearchArguments,
+    style: HighlightStyle,
 ) -> Result<ExitStatus, Error> {
     if let (Some(since), Some(until)) = (arguments.since, arguments.until) {
         // Swapped dates would read as "nothing found" (exit 1), as if the
@@ -147,7 +155,7 @@ fn search_notes(
         write!(
             out,
             "{}",
-            render_results(&results, std::io::stdout().is_terminal())
+            render_results(&results, std::io::stdout().is_terminal(), style)
         )?;
     }
     Ok(if results.hits.is_empty() {
@@ -159,7 +167,7 @@ fn search_notes(
 
 /// The search results as `cases search` prints them: a table, or a table
 /// with terminal styling when `terminal`.
-pub fn render_results(results: &SearchResults, terminal: bool) -> String {
+pub fn render_results(results: &SearchResults, terminal: bool, style: HighlightStyle) -> String {
     let mut text = String::new();
     if let Some(better) = &results.did_you_mean {
         text.push_str(&format!("did you mean: {better}\n"));
@@ -168,7 +176,6 @@ pub fn render_results(results: &SearchResults, terminal: bool) -> String {
         text.push_str("no notes match\n");
         return text;
     }
-    let style = HighlightStyle::detect(terminal);
     let mut table = new_table(terminal);
     table.set_header(["Date", "Machine", "Cause", "Downtime", "Snippet", "ID"]);
     for hit in &results.hits {
@@ -207,7 +214,11 @@ fn downtime_text(downtime: Option<Downtime>) -> String {
     downtime.map_or_else(|| "-".to_string(), |d| d.to_string())
 }
 
-fn show_note(folder: &NotesFolder, arguments: &ShowArguments) -> Result<ExitStatus, Error> {
+fn show_note(
+    folder: &NotesFolder,
+    arguments: &ShowArguments,
+    style: HighlightStyle,
+) -> Result<ExitStatus, Error> {
     let (note, path) = folder.find(&arguments.id)?;
     let mut out = std::io::stdout().lock();
     if arguments.json {
@@ -217,7 +228,7 @@ fn show_note(folder: &NotesFolder, arguments: &ShowArguments) -> Result<ExitStat
             serde_json::to_string_pretty(&note.to_json(&path))?
         )?;
     } else {
-        let bold = HighlightStyle::detect(std::io::stdout().is_terminal());
+        let bold = style;
         write!(out, "{}", render_note(&note, &path, bold))?;
     }
     Ok(ExitStatus::Success)

@@ -35,7 +35,7 @@ pub fn execute(arguments: Arguments) -> Result<ExitStatus, Error> {
     let context = Context::from_arguments(&arguments);
     match arguments.command {
         Command::Calc(calc) => calc_command::execute(&context, *calc),
-        Command::Cases(cases) => cases_command::execute(*cases),
+        Command::Cases(cases) => cases_command::execute(&context, *cases),
         Command::Chart(chart) => chart_command::execute(&context, *chart),
         Command::Demo => demo_command::execute(&context),
         Command::Diagnose(args) => diagnose_command::execute(&context, *args),

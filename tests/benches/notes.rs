@@ -380,7 +380,14 @@ fn breakdown(binary: &Path, notes: &Path, index_dir: &Path, queries: &[String]) 
     let results = search(&mut note_index, &SearchRequest::new(queries[0].clone())).unwrap();
     row(
         "table rendering",
-        p50_of(20, || assert!(!render_results(&results, false).is_empty())),
+        p50_of(20, || {
+            assert!(!render_results(
+                &results,
+                false,
+                spoolsleuth::search::HighlightStyle::Markers
+            )
+            .is_empty())
+        }),
     );
 }
 
