@@ -17,7 +17,7 @@ use super::{
     content_hash, register_index_analyzers, IndexError, IndexLocation, IndexResult, Manifest,
     ManifestEntry, NoteSchema, SyncReport,
 };
-use crate::notes::{Note, NoteFile, NotesFolder};
+use crate::notes::{Note, NoteFile, NotesError, NotesFolder};
 
 /// Memory budget of the index writer for a full build, in bytes (split over
 /// its threads). Chosen so that indexing 100k notes stays well under 200 MB.
@@ -116,15 +116,18 @@ impl NoteIndex {
             .map_err(|e| tantivy(memory, e))?;
         let mut report = SyncReport::default();
         for file in &files {
-            let text = folder.read(&file.name)?;
-            match Note::parse(Path::new(&file.name), &text) {
+            let parsed = match read_note(&folder, &file.name)? {
+                Ok(text) => Note::parse(Path::new(&file.name), &text).map_err(|e| e.to_string()),
+                Err(problem) => Err(problem),
+            };
+            match parsed {
                 Ok(note) => {
                     writer
                         .add_document(schema.document(&note))
                         .map_err(|e| tantivy(memory, e))?;
                     report.added += 1;
                 }
-                Err(error) => report.broken.push(qualify(&folder, &error.to_string())),
+                Err(problem) => report.broken.push(qualify(&folder, &problem)),
             }
         }
         writer.commit().map_err(|e| tantivy(memory, e))?;
@@ -180,9 +183,27 @@ impl NoteIndex {
             report.removed += 1;
         }
         for file in &change.changed {
-            let text = self.folder.read(&file.name)?;
-            let hash = content_hash(text.as_bytes());
             let known = manifest.entries.get(&file.name);
+            let text = match read_note(&self.folder, &file.name)? {
+                Ok(text) => text,
+                Err(problem) => {
+                    // Unread: whatever was indexed from this file before goes.
+                    let writer = self.writer(&mut writer, &dir)?;
+                    writer.delete_term(Term::from_field_text(
+                        self.schema.id,
+                        &name_to_id(&file.name),
+                    ));
+                    if known.is_some() {
+                        report.updated += 1;
+                    } else {
+                        report.added += 1;
+                    }
+                    let entry = unread_entry(file, problem);
+                    manifest.entries.insert(file.name.clone(), entry);
+                    continue;
+                }
+            };
+            let hash = content_hash(text.as_bytes());
             let entry = |broken| ManifestEntry {
                 broken,
                 hash,
@@ -273,7 +294,16 @@ impl NoteIndex {
             ..SyncReport::default()
         };
         for file in &files {
-            let text = folder.read(&file.name)?;
+            let text = match read_note(&folder, &file.name)? {
+                Ok(text) => text,
+                Err(problem) => {
+                    manifest
+                        .entries
+                        .insert(file.name.clone(), unread_entry(file, problem));
+                    progress.inc(1);
+                    continue;
+                }
+            };
             let broken = match Note::parse(Path::new(&file.name), &text) {
                 Ok(note) => {
                     writer
@@ -407,6 +437,27 @@ fn changes<'f>(manifest: &Manifest, files: &'f [NoteFile]) -> Changes<'f> {
         .cloned()
         .collect();
     Changes { changed, removed }
+}
+
+/// A note's text, or why it is skipped: too large, not UTF-8, or a link out
+/// of the notes folder (`name: reason`, as a parse error reads).
+fn read_note(folder: &NotesFolder, name: &str) -> IndexResult<Result<String, String>> {
+    match folder.read(name) {
+        Ok(text) => Ok(Ok(text)),
+        Err(NotesError::Unreadable { reason, .. }) => Ok(Err(format!("{name}: {reason}"))),
+        Err(error) => Err(error.into()),
+    }
+}
+
+/// The manifest entry of a note skipped unread. Its hash is that of the
+/// reason: no note text starts like a reason, so an edit is always re-read.
+fn unread_entry(file: &NoteFile, problem: String) -> ManifestEntry {
+    ManifestEntry {
+        hash: content_hash(problem.as_bytes()),
+        broken: Some(problem),
+        mtime_ns: file.mtime_ns,
+        size: file.size,
+    }
 }
 
 fn name_to_id(name: &str) -> String {
