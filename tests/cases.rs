@@ -924,3 +924,18 @@ fn add_makes_ids_inside_the_notes_folder_from_any_title() {
         .collect();
     assert_eq!(names, ["notes"]);
 }
+
+#[test]
+fn a_query_over_the_length_limit_exits_2_before_any_indexing() {
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    let query = "silt ".repeat(201);
+    let output = workspace.run(&["search", &query]);
+    status(&output, 2);
+    assert_eq!(stdout(&output), "");
+    assert_eq!(
+        stderr(&output),
+        "error: query: 1005 characters is longer than the limit of 1000 characters\n"
+    );
+    assert!(!workspace.index().exists());
+}

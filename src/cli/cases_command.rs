@@ -108,7 +108,6 @@ fn search_notes(
     index_dir: Option<PathBuf>,
     arguments: &SearchArguments,
 ) -> Result<ExitStatus, Error> {
-    let mut index = open_index(folder, index_dir)?;
     let request = SearchRequest {
         cause: arguments.cause.clone(),
         limit: usize::from(arguments.limit),
@@ -118,6 +117,9 @@ fn search_notes(
         symptom: arguments.symptom.clone(),
         until: arguments.until,
     };
+    // Before the index is opened: a pasted page is refused at once.
+    request.check_length()?;
+    let mut index = open_index(folder, index_dir)?;
     let results = search(&mut index, &request)?;
     let mut out = std::io::stdout().lock();
     if arguments.json {
