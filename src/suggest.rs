@@ -16,13 +16,16 @@ where
         return Some(exact);
     }
     let limit = (word.chars().count() / 3).clamp(1, 4);
+    let lower = word.to_lowercase();
+    let length = lower.chars().count();
     candidates
         .iter()
-        .map(|c| {
-            (
-                strsim::damerau_levenshtein(&word.to_lowercase(), &c.to_lowercase()),
-                *c,
-            )
+        .filter_map(|c| {
+            let other = c.to_lowercase();
+            // The distance is at least the difference in length: far ones go
+            // unmeasured, so a long pasted word costs no more than a short one.
+            (other.chars().count().abs_diff(length) <= limit)
+                .then(|| (strsim::damerau_levenshtein(&lower, &other), *c))
         })
         .filter(|(d, c)| *d <= limit && *c != word)
         // On a tie prefer a candidate with the same letters (a transposition).

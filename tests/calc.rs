@@ -736,6 +736,19 @@ fn bad_reading_names_the_option_and_quotes_the_text() {
 }
 
 #[test]
+fn a_pasted_reading_over_the_length_limit_exits_2_unquoted() {
+    let pasted = format!("10 {}", "bar ".repeat(100));
+    let output = run(&["orifice-flow", "--diameter", "2 mm", "--drop", &pasted]);
+    assert_eq!(output.status.code(), Some(2));
+    assert!(output.stdout.is_empty());
+    assert_eq!(
+        String::from_utf8(output.stderr).unwrap(),
+        "error: --drop: a reading of 402 bytes is longer than the limit of 256 bytes \
+         (expected a number and a unit, e.g. `1500 psi`)\n"
+    );
+}
+
+#[test]
 fn wrong_dimension_and_missing_unit_exit_2() {
     let output = run(&[
         "motor-speed",

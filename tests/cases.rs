@@ -864,3 +864,184 @@ fn a_note_is_added_straight_from_a_diagnosis() {
         );
     }
 }
+
+/// A note with a valid front matter and a body of more than 1 MiB.
+fn huge_note(body: &str) -> String {
+    let mut text = note(
+        "press-4",
+        "2024-05-05",
+        "Logger dump",
+        "runs-hot",
+        "cooler-fouled",
+        body,
+    );
+    text.push_str(&"a".repeat(1 << 20));
+    text
+}
+
+#[test]
+fn a_note_over_the_size_limit_is_skipped_with_a_warning_and_left_alone() {
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    let huge = huge_note("Silt everywhere.");
+    workspace.write("2024-05-05-press-4-logger.md", &huge);
+    let warning = |name: &str| {
+        format!(
+            "warning: {}: the note is larger than the limit of 1048576 bytes (note skipped)\n",
+            workspace.notes().join(name).display()
+        )
+    };
+    // Built from scratch, then kept.
+    for _ in 0..2 {
+        let output = workspace.run(&["search", "silt", "--json"]);
+        status(&output, 0);
+        assert_eq!(ids(&output), ["2024-03-02-press-4-sag"]);
+        assert_eq!(stderr(&output), warning("2024-05-05-press-4-logger.md"));
+    }
+    // An indexed note that grows over the limit leaves the index.
+    let grown = huge_note("The spool was stuck with silt.");
+    workspace.write("2024-03-02-press-4-sag.md", &grown);
+    let output = workspace.run(&["search", "silt", "--json"]);
+    status(&output, 1);
+    assert_eq!(ids(&output), Vec::<String>::new());
+    assert_eq!(
+        stderr(&output),
+        warning("2024-03-02-press-4-sag.md") + &warning("2024-05-05-press-4-logger.md")
+    );
+    let read = |name: &str| fs::read_to_string(workspace.notes().join(name)).unwrap();
+    assert_eq!(read("2024-05-05-press-4-logger.md"), huge);
+    assert_eq!(read("2024-03-02-press-4-sag.md"), grown);
+}
+
+#[test]
+fn a_note_that_is_not_utf8_is_skipped_with_a_warning() {
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    fs::write(
+        workspace.notes().join("latin.md"),
+        b"---\ntitle: Caf\xe9 press\n---\n",
+    )
+    .unwrap();
+    let output = workspace.run(&["search", "silt", "--json"]);
+    status(&output, 0);
+    assert_eq!(ids(&output), ["2024-03-02-press-4-sag"]);
+    assert_eq!(
+        stderr(&output),
+        format!(
+            "warning: {}: the file is not UTF-8 text (at byte 14); save it as UTF-8 (note skipped)\n",
+            workspace.notes().join("latin.md").display()
+        )
+    );
+}
+
+#[cfg(unix)]
+#[test]
+fn a_link_out_of_the_notes_folder_is_skipped_and_not_shown() {
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    let outside = workspace.dir.path().join("outside.md");
+    let secret = note(
+        "press-4",
+        "2024-04-04",
+        "Secret",
+        "runs-hot",
+        "cooler-fouled",
+        "Silt outside.",
+    );
+    fs::write(&outside, &secret).unwrap();
+    let link = workspace.notes().join("2024-04-04-press-4-secret.md");
+    std::os::unix::fs::symlink(&outside, &link).unwrap();
+    let problem = format!(
+        "{}: the note is a link to {}, outside the notes folder",
+        link.display(),
+        fs::canonicalize(&outside).unwrap().display()
+    );
+    let output = workspace.run(&["search", "silt", "--json"]);
+    status(&output, 0);
+    assert_eq!(ids(&output), ["2024-03-02-press-4-sag"]);
+    assert_eq!(
+        stderr(&output),
+        format!("warning: {problem} (note skipped)\n")
+    );
+    let output = workspace.run(&["show", "2024-04-04-press-4-secret"]);
+    status(&output, 2);
+    assert_eq!(stdout(&output), "");
+    assert_eq!(stderr(&output), format!("error: {problem}\n"));
+    assert_eq!(fs::read_to_string(&outside).unwrap(), secret);
+}
+
+#[test]
+fn show_refuses_ids_that_leave_the_notes_folder() {
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    fs::write(
+        workspace.dir.path().join("secret.md"),
+        note(
+            "press-4",
+            "2024-04-04",
+            "Secret",
+            "runs-hot",
+            "cooler-fouled",
+            "x",
+        ),
+    )
+    .unwrap();
+    for id in ["../secret", "/etc/passwd", "sub/../../secret"] {
+        let output = workspace.run(&["show", id]);
+        status(&output, 2);
+        assert_eq!(stdout(&output), "");
+        assert_eq!(
+            stderr(&output),
+            format!(
+                "error: '{id}' is not a note id: an id is a file name of the notes folder \
+                 without '.md', with no '/' or '..'\n"
+            )
+        );
+    }
+}
+
+#[test]
+fn add_makes_ids_inside_the_notes_folder_from_any_title() {
+    let workspace = Workspace::new();
+    let output = workspace.run(&[
+        "add",
+        "--date",
+        "2026-12-01",
+        "--machine",
+        "press-4",
+        "--title",
+        "../../etc/passwd",
+        "--symptom",
+        "speed-sags-under-load",
+        "--cause",
+        "compensator-sticking",
+        "--fix",
+        "Cleaned the spool",
+    ]);
+    status(&output, 0);
+    let path = workspace.notes().join("2026-12-01-press-4-etc-passwd.md");
+    assert_eq!(
+        stdout(&output),
+        format!("added 2026-12-01-press-4-etc-passwd: {}\n", path.display())
+    );
+    let names: Vec<String> = fs::read_dir(workspace.dir.path())
+        .unwrap()
+        .map(|e| e.unwrap().file_name().to_string_lossy().into_owned())
+        .collect();
+    assert_eq!(names, ["notes"]);
+}
+
+#[test]
+fn a_query_over_the_length_limit_exits_2_before_any_indexing() {
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    let query = "silt ".repeat(201);
+    let output = workspace.run(&["search", &query]);
+    status(&output, 2);
+    assert_eq!(stdout(&output), "");
+    assert_eq!(
+        stderr(&output),
+        "error: query: 1005 characters is longer than the limit of 1000 characters\n"
+    );
+    assert!(!workspace.index().exists());
+}

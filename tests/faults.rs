@@ -315,9 +315,9 @@ fn unreadable_binary_and_huge_files_are_skipped_by_name() {
         )), "{err}");
         assert!(
             err.contains(&format!(
-            "warning: {}: the file is larger than 1 MiB, too big for a case note (note skipped)\n",
-            name("huge.md")
-        )),
+                "warning: {}: the note is larger than the limit of 1048576 bytes (note skipped)\n",
+                name("huge.md")
+            )),
             "{err}"
         );
         if unreadable {

@@ -137,7 +137,6 @@ fn search_notes(
             });
         }
     }
-    let mut index = open_index(folder, index_dir)?;
     let request = SearchRequest {
         cause: arguments.cause.clone(),
         limit: usize::from(arguments.limit),
@@ -147,6 +146,9 @@ fn search_notes(
         symptom: arguments.symptom.clone(),
         until: arguments.until,
     };
+    // Before the index is opened: a pasted page is refused at once.
+    request.check_length()?;
+    let mut index = open_index(folder, index_dir)?;
     let results = search(&mut index, &request)?;
     let mut out = std::io::stdout().lock();
     if arguments.json {

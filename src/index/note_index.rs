@@ -297,6 +297,7 @@ impl NoteIndex {
                 .values()
                 .filter_map(|e| e.broken.as_deref()),
         );
+        unreadable.sort();
         report.broken.extend(unreadable);
         Ok((self, report))
     }
@@ -392,6 +393,7 @@ impl NoteIndex {
         progress.finish_and_clear();
         broken.sort();
         report.broken = broken;
+        unreadable.sort();
         report.broken.extend(unreadable);
         let reader = manual_reader(&index).map_err(|e| tantivy(dir, e))?;
         Ok((

@@ -110,8 +110,10 @@ impl Note {
         };
         // Serializing plain strings, lists and a string map cannot fail.
         let yaml = serde_yaml::to_string(&front).unwrap_or_default();
-        let text = self.text.trim();
-        if text.is_empty() {
+        // Blank lines around the text and spaces after it are layout; the
+        // indentation of its first line is content (a Markdown code block).
+        let text = self.text.trim_start_matches(['\r', '\n']).trim_end();
+        if text.trim().is_empty() {
             format!("---\n{yaml}---\n")
         } else {
             format!("---\n{yaml}---\n\n{text}\n")
@@ -166,5 +168,25 @@ mod tests {
         assert_eq!(back.parts, note.parts);
         assert_eq!(back.readings, note.readings);
         assert_eq!(back.text.trim(), note.text);
+    }
+
+    #[test]
+    fn the_text_keeps_the_indentation_of_its_first_line() {
+        let mut note = Note::parse(
+            Path::new("n.md"),
+            "---\ndate: 2022-05-06\nmachine: conveyor-7\ntitle: t\nsymptoms: [runs-hot]\n\
+             cause: pump-worn\nfix: f\n---\n",
+        )
+        .unwrap();
+        note.text = "\n\n    case drain: 4 L/min\n    supply: 160 bar  \n\n".into();
+        let back = Note::parse(Path::new("n.md"), &note.to_markdown()).unwrap();
+        assert_eq!(back.text, "    case drain: 4 L/min\n    supply: 160 bar\n");
+        assert_eq!(
+            Note {
+                text: note.text.clone(),
+                ..back
+            },
+            note
+        );
     }
 }

@@ -50,6 +50,18 @@ impl std::error::Error for NoteError {}
 /// Any error of the notes module.
 #[derive(Debug, thiserror::Error)]
 pub enum NotesError {
+    /// A note file name that is not a plain name inside the notes folder.
+    #[error("'{name}' is not a note file of the notes folder: a note is read only from the folder itself")]
+    BadName {
+        /// The name given.
+        name: String,
+    },
+    /// A note id that could not name a file of the notes folder.
+    #[error("'{id}' is not a note id: an id is a file name of the notes folder without '.md', with no '/' or '..'")]
+    BadId {
+        /// The id given.
+        id: String,
+    },
     /// The demo notes are built into the binary and cannot be changed.
     #[error("the built-in demo notes are read-only; choose a notes folder with --cases DIR or SPOOLSLEUTH_CASES")]
     EmbeddedReadOnly,
@@ -93,6 +105,15 @@ pub enum NotesError {
         path: PathBuf,
         /// The cause.
         source: std::io::Error,
+    },
+    /// A note file that is not read: too large, not UTF-8, or a link that
+    /// leads out of the notes folder. A search skips it with a warning.
+    #[error("{path}: {reason}")]
+    Unreadable {
+        /// The note file.
+        path: PathBuf,
+        /// Why it is not read.
+        reason: String,
     },
     /// An option given to `cases add` is not valid.
     #[error("{option}: {message}")]

@@ -117,8 +117,16 @@ impl NotesFolder {
         }
     }
 
-    /// The text of a note file.
+    /// The text of a note file. A note larger than [`MAX_NOTE_BYTES`], not
+    /// UTF-8, or a link that leads out of the folder is
+    /// [`NotesError::Unreadable`]; a name that is not a plain file name of
+    /// the folder is refused.
     pub fn read(&self, name: &str) -> NotesResult<String> {
+        if !is_plain_file_name(name) {
+            return Err(NotesError::BadName {
+                name: name.to_string(),
+            });
+        }
         match self {
             NotesFolder::Embedded => demo_notes()
                 .iter()
@@ -127,14 +135,17 @@ impl NotesFolder {
                 .ok_or_else(|| {
                     NotesError::io(self.path_of(name), std::io::ErrorKind::NotFound.into())
                 }),
-            NotesFolder::Disk(dir) => read_note_file(&dir.join(name)),
+            NotesFolder::Disk(dir) => read_disk_note(dir, name),
         }
     }
 
     /// The note with this id and its path, or the nearest id as a suggestion.
     pub fn find(&self, id: &str) -> NotesResult<(Note, PathBuf)> {
-        let files = self.list()?;
         let name = format!("{id}.md");
+        if !is_plain_file_name(&name) {
+            return Err(NotesError::BadId { id: id.to_string() });
+        }
+        let files = self.list()?;
         if files.iter().any(|f| f.name == name) {
             let path = self.path_of(&name);
             let note = Note::parse(&path, &self.read(&name)?)?;
@@ -156,6 +167,11 @@ impl NotesFolder {
         let NotesFolder::Disk(dir) = self else {
             return Err(NotesError::EmbeddedReadOnly);
         };
+        if !is_plain_file_name(&format!("{}.md", note.id)) {
+            return Err(NotesError::BadId {
+                id: note.id.to_string(),
+            });
+        }
         fs::create_dir_all(dir).map_err(|e| NotesError::io(dir, e))?;
         for n in 1..=10_000 {
             let id = note.id.with_suffix(n);
@@ -189,33 +205,55 @@ impl NotesFolder {
     }
 }
 
-/// Read one note file: at most [`MAX_NOTE_BYTES`], UTF-8 text with no NUL
-/// byte (a NUL means a binary file saved under a `.md` name).
-fn read_note_file(path: &Path) -> NotesResult<String> {
-    let invalid = |message: String| {
-        NotesError::io(
-            path,
-            std::io::Error::new(std::io::ErrorKind::InvalidData, message),
-        )
+/// True for a file name of the folder itself: no separator, not `.` or
+/// `..`, not absolute, not empty.
+fn is_plain_file_name(name: &str) -> bool {
+    let mut components = Path::new(name).components();
+    matches!(
+        (components.next(), components.next()),
+        (Some(std::path::Component::Normal(n)), None) if n == name
+    )
+}
+
+/// Read `name` in `dir`: inside the folder (a link out of it is refused), at
+/// most [`MAX_NOTE_BYTES`], UTF-8 text with no NUL byte (a NUL means a
+/// binary file saved under a `.md` name).
+fn read_disk_note(dir: &Path, name: &str) -> NotesResult<String> {
+    let path = dir.join(name);
+    let unreadable = |reason: String| NotesError::Unreadable {
+        path: path.clone(),
+        reason,
     };
-    let file = fs::File::open(path).map_err(|e| NotesError::io(path, e))?;
+    let link = fs::symlink_metadata(&path).map_err(|e| NotesError::io(&path, e))?;
+    if link.file_type().is_symlink() {
+        let target = fs::canonicalize(&path).map_err(|e| NotesError::io(&path, e))?;
+        let root = fs::canonicalize(dir).map_err(|e| NotesError::io(dir, e))?;
+        if !target.starts_with(&root) {
+            return Err(unreadable(format!(
+                "the note is a link to {}, outside the notes folder",
+                target.display()
+            )));
+        }
+    }
+    let file = fs::File::open(&path).map_err(|e| NotesError::io(&path, e))?;
+    // Read one byte past the limit rather than trusting the size listed,
+    // which may change between the listing and the read.
     let mut bytes = Vec::new();
     file.take(MAX_NOTE_BYTES + 1)
         .read_to_end(&mut bytes)
-        .map_err(|e| NotesError::io(path, e))?;
+        .map_err(|e| NotesError::io(&path, e))?;
     if bytes.len() as u64 > MAX_NOTE_BYTES {
-        return Err(invalid(format!(
-            "the file is larger than {} MiB, too big for a case note",
-            MAX_NOTE_BYTES / (1024 * 1024)
+        return Err(unreadable(format!(
+            "the note is larger than the limit of {MAX_NOTE_BYTES} bytes"
         )));
     }
     if let Some(at) = bytes.iter().position(|b| *b == 0) {
-        return Err(invalid(format!(
+        return Err(unreadable(format!(
             "the file holds a NUL byte (at byte {at}): it is not a text note"
         )));
     }
     String::from_utf8(bytes).map_err(|e| {
-        invalid(format!(
+        unreadable(format!(
             "the file is not UTF-8 text (at byte {}); save it as UTF-8",
             e.utf8_error().valid_up_to()
         ))
@@ -340,6 +378,97 @@ mod tests {
         assert_eq!(
             err.to_string(),
             "no note with id '2024-01-02-press-4-sga' (did you mean '2024-01-02-press-4-sag'?)"
+        );
+    }
+
+    #[test]
+    fn only_plain_file_names_of_the_folder_are_read() {
+        for name in ["a.md", "2024-01-02-press-4-sag.md", "..md", "a b.md"] {
+            assert!(is_plain_file_name(name), "{name}");
+        }
+        for name in [
+            "",
+            ".",
+            "..",
+            "../a.md",
+            "/etc/a.md",
+            "x/a.md",
+            "./a.md",
+            "a.md/",
+        ] {
+            assert!(!is_plain_file_name(name), "{name}");
+        }
+        let dir = tempfile::tempdir().unwrap();
+        let notes = dir.path().join("notes");
+        fs::create_dir(&notes).unwrap();
+        fs::write(dir.path().join("secret.md"), "---\n---\n").unwrap();
+        let folder = NotesFolder::Disk(notes);
+        assert_eq!(
+            folder.read("../secret.md").unwrap_err().to_string(),
+            "'../secret.md' is not a note file of the notes folder: a note is read only from the folder itself"
+        );
+        for id in ["../secret", "/etc/passwd", "a/../../secret"] {
+            assert_eq!(
+                folder.find(id).unwrap_err().to_string(),
+                format!("'{id}' is not a note id: an id is a file name of the notes folder without '.md', with no '/' or '..'")
+            );
+        }
+    }
+
+    #[test]
+    fn add_refuses_an_id_that_leaves_the_folder() {
+        let dir = tempfile::tempdir().unwrap();
+        let notes = dir.path().join("notes");
+        let folder = NotesFolder::Disk(notes.clone());
+        let err = folder.add(&sample("../escaped")).unwrap_err();
+        assert_eq!(
+            err.to_string(),
+            "'../escaped' is not a note id: an id is a file name of the notes folder without '.md', with no '/' or '..'"
+        );
+        assert!(!dir.path().join("escaped.md").exists());
+        assert!(!notes.exists());
+    }
+
+    #[test]
+    fn a_note_over_the_limit_is_not_read() {
+        let dir = tempfile::tempdir().unwrap();
+        let folder = NotesFolder::Disk(dir.path().to_path_buf());
+        let limit = usize::try_from(MAX_NOTE_BYTES).unwrap();
+        fs::write(dir.path().join("big.md"), "x".repeat(limit + 1)).unwrap();
+        fs::write(dir.path().join("edge.md"), "x".repeat(limit)).unwrap();
+        assert_eq!(
+            folder.read("big.md").unwrap_err().to_string(),
+            format!(
+                "{}: the note is larger than the limit of 1048576 bytes",
+                dir.path().join("big.md").display()
+            )
+        );
+        assert_eq!(folder.read("edge.md").unwrap().len(), limit);
+    }
+
+    #[cfg(unix)]
+    #[test]
+    fn a_link_out_of_the_folder_is_not_read_but_one_inside_is() {
+        let dir = tempfile::tempdir().unwrap();
+        let notes = dir.path().join("notes");
+        fs::create_dir(&notes).unwrap();
+        fs::write(dir.path().join("secret.md"), "outside").unwrap();
+        fs::write(notes.join("real.md"), "inside").unwrap();
+        std::os::unix::fs::symlink(dir.path().join("secret.md"), notes.join("out.md")).unwrap();
+        std::os::unix::fs::symlink("real.md", notes.join("alias.md")).unwrap();
+        let folder = NotesFolder::Disk(notes.clone());
+        let names: Vec<String> = folder.list().unwrap().into_iter().map(|f| f.name).collect();
+        assert_eq!(names, ["alias.md", "out.md", "real.md"]);
+        assert_eq!(folder.read("alias.md").unwrap(), "inside");
+        assert_eq!(
+            folder.read("out.md").unwrap_err().to_string(),
+            format!(
+                "{}: the note is a link to {}, outside the notes folder",
+                notes.join("out.md").display(),
+                fs::canonicalize(dir.path().join("secret.md"))
+                    .unwrap()
+                    .display()
+            )
         );
     }
 

@@ -15,8 +15,8 @@ pub use formulas::{function_list, functions, Check, Evaluated, Evidence, TypeEnv
 pub use lint::Lint;
 pub use readings::{ReadingError, Readings};
 pub use rule_base::{
-    unknown, CauseDef, CautionDef, DerivedDef, Origin, QuantityDef, RuleBase, RuleDef, SettingDef,
-    SymptomDef, MAX_RULE_FILE_BYTES,
+    default_sources, unknown, CauseDef, CautionDef, DerivedDef, Origin, QuantityDef, RuleBase,
+    RuleDef, SettingDef, SymptomDef, MAX_RULE_FILE_BYTES,
 };
 pub use rule_file::{
     Actuator, Circuit, Effect, ExampleEntry, Expectation, Hazard, Placement, QuantitySource,

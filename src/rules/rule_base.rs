@@ -989,8 +989,9 @@ fn schema_message(problem: &str) -> String {
     text
 }
 
-/// The default rule files, named `rules/<file>`.
-fn default_sources() -> Vec<(SourceMap, bool)> {
+/// The default rule files, named `rules/<file>`, sorted by name; each is
+/// marked as a default (not a user) file.
+pub fn default_sources() -> Vec<(SourceMap, bool)> {
     let mut files: Vec<(SourceMap, bool)> = DEFAULT_RULES
         .files()
         .filter(|f| f.path().extension().is_some_and(|e| e == "yaml"))

@@ -17,8 +17,9 @@ use crate::index::{NoteIndex, NoteSchema};
 /// Longest snippet, in characters.
 const SNIPPET_CHARS: usize = 160;
 
-/// Search the notes.
+/// Search the notes; a query over [`super::MAX_QUERY_CHARS`] is refused.
 pub fn search(index: &mut NoteIndex, request: &SearchRequest) -> SearchResult<SearchResults> {
+    request.check_length()?;
     with_recovery(index, |index| run(index, request))
 }
 

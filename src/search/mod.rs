@@ -23,7 +23,7 @@ pub use machine_history::{machine_history, MachineHistory, SymptomHistory};
 pub use query_builder::{BuiltQuery, QueryBuilder};
 pub use search_error::SearchError;
 pub use search_hit::{SearchHit, SearchResults};
-pub use search_request::SearchRequest;
+pub use search_request::{SearchRequest, MAX_QUERY_CHARS};
 pub use similar_case::{similar_cases, SimilarCase};
 pub use snippet_text::SnippetText;
 pub use stored_note::StoredNote;

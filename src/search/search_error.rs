@@ -16,6 +16,14 @@ pub enum SearchError {
         /// What is wrong.
         message: String,
     },
+    /// The query text is longer than the limit.
+    #[error("query: {chars} characters is longer than the limit of {max} characters")]
+    QueryTooLong {
+        /// Its length in characters.
+        chars: usize,
+        /// The limit in characters.
+        max: usize,
+    },
     /// The query text does not parse.
     #[error("query: {message}{}", column.map(|c| format!(" at column {c}")).unwrap_or_default())]
     Syntax {

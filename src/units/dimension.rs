@@ -74,6 +74,43 @@ impl Dimension {
     /// Thermal expansion coefficient (1/K).
     pub const PER_TEMPERATURE: Dimension = Dimension::new(0, 0, 0, -1);
 
+    /// The largest power of a base unit that a unit expression may reach:
+    /// far beyond any physical quantity, and far from the `i8` bounds.
+    pub const MAX_EXPONENT: i8 = 32;
+
+    /// The dimension of a product, or `None` past [`Self::MAX_EXPONENT`].
+    pub fn checked_times(self, other: Dimension) -> Option<Dimension> {
+        self.checked(other, 1, 1)
+    }
+
+    /// The dimension of a quotient, or `None` past [`Self::MAX_EXPONENT`].
+    pub fn checked_per(self, other: Dimension) -> Option<Dimension> {
+        self.checked(other, 1, -1)
+    }
+
+    /// The dimension raised to `n`, or `None` past [`Self::MAX_EXPONENT`].
+    pub fn checked_powi(self, n: i8) -> Option<Dimension> {
+        self.checked(Dimension::NONE, n, 0)
+    }
+
+    /// `a·self + b·other` exponent by exponent, in `i16` so that nothing
+    /// wraps, then bounded by [`Self::MAX_EXPONENT`].
+    fn checked(self, other: Dimension, a: i8, b: i8) -> Option<Dimension> {
+        let limit = i16::from(Self::MAX_EXPONENT);
+        let e = |x: i8, y: i8| {
+            let v = i16::from(a) * i16::from(x) + i16::from(b) * i16::from(y);
+            i8::try_from(v)
+                .ok()
+                .filter(|_| (-limit..=limit).contains(&v))
+        };
+        Some(Dimension::new(
+            e(self.mass, other.mass)?,
+            e(self.length, other.length)?,
+            e(self.time, other.time)?,
+            e(self.temperature, other.temperature)?,
+        ))
+    }
+
     /// The dimension of a product.
     pub fn times(self, other: Dimension) -> Dimension {
         Dimension::new(

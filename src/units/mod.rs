@@ -20,7 +20,7 @@ pub use dimension::Dimension;
 pub use format::{format, format_number, value_in};
 pub use kind::Kind;
 pub(crate) use parse::number_len;
-pub use parse::{parse_as, parse_quantity, split_number};
+pub use parse::{parse_as, parse_quantity, split_number, MAX_READING_LENGTH};
 pub use quantity::Quantity;
 pub use unit::Unit;
 pub use unit_error::UnitError;

@@ -5,9 +5,20 @@ use super::unit::{Reference, STANDARD_ATMOSPHERE, WATER_DENSITY_60F};
 use super::unit_expr::{parse_unit, UnitExpr};
 use super::{Dimension, Kind, Quantity, UnitError};
 
+/// The longest reading accepted, in bytes after trimming: far above any
+/// number with its unit (`1500 psi`, `2.8 in^3/rev`), low enough that no
+/// pasted text is scanned, quoted back whole or parsed as a unit.
+pub const MAX_READING_LENGTH: usize = 256;
+
 /// Split a reading into its leading number and the rest (the unit text).
 pub fn split_number(text: &str) -> Result<(f64, &str), UnitError> {
     let trimmed = text.trim();
+    if trimmed.len() > MAX_READING_LENGTH {
+        return Err(UnitError::TooLong {
+            len: trimmed.len(),
+            max: MAX_READING_LENGTH,
+        });
+    }
     if trimmed.is_empty() {
         return Err(UnitError::Empty);
     }
@@ -333,6 +344,24 @@ mod bad_input {
         ("3 (m", Kind::Length, "`3 (m`: unbalanced bracket in the unit"),
         ("3 psia/s", Kind::Pressure, "`3 psia/s`: an absolute or vacuum pressure cannot be combined with other units"),
     ];
+
+    #[test]
+    fn a_reading_longer_than_the_limit_is_refused_unread() {
+        let longest = format!("1{} psi", "0".repeat(MAX_READING_LENGTH - 5));
+        assert_eq!(longest.len(), MAX_READING_LENGTH);
+        assert!(parse_as(&format!("  {longest}  "), Kind::Pressure).is_ok());
+        let pasted = format!("{longest}x");
+        for result in [parse_as(&pasted, Kind::Pressure), parse_quantity(&pasted)] {
+            assert_eq!(
+                result.map_err(|e| e.to_string()),
+                Err(
+                    "a reading of 257 bytes is longer than the limit of 256 bytes \
+                     (expected a number and a unit, e.g. `1500 psi`)"
+                        .to_string()
+                )
+            );
+        }
+    }
 
     #[test]
     fn every_malformed_reading_gets_its_message() {

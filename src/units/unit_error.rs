@@ -72,6 +72,14 @@ pub enum UnitError {
         /// Why.
         reason: String,
     },
+    /// A reading longer than any number with its unit; not quoted back.
+    #[error("a reading of {len} bytes is longer than the limit of {max} bytes (expected a number and a unit, e.g. `1500 psi`)")]
+    TooLong {
+        /// Its length in bytes.
+        len: usize,
+        /// The limit in bytes.
+        max: usize,
+    },
     /// A unit that is not in the catalogue.
     #[error("`{text}`: unknown unit `{unit}`{}", suggestion.as_ref().map(|s| format!(" (did you mean `{s}`?)")).unwrap_or_default())]
     UnknownUnit {

@@ -7,7 +7,10 @@
 //! `expr := factor (('*' | '/') factor)*`, `factor := atom ('^' int)? | '(' expr ')' ('^' int)?`.
 
 use super::unit::{self, Reference, Scale, Unit, UNITS};
-use super::{Dimension, UnitError};
+use super::{Dimension, UnitError, MAX_READING_LENGTH};
+
+/// The deepest nesting of brackets in a unit: `J/(kg*K)` needs one.
+pub const MAX_UNIT_DEPTH: usize = 4;
 
 /// A resolved unit: how to turn a number of it into SI.
 #[derive(Clone, Debug, PartialEq)]
@@ -44,6 +47,12 @@ impl UnitExpr {
 /// Resolve a unit expression, e.g. `bar`, `L/min`, `in^3/rev`, `kPa abs`.
 /// `reading` is the whole text, quoted in errors.
 pub fn parse_unit(unit_text: &str, reading: &str) -> Result<UnitExpr, UnitError> {
+    if unit_text.len() > MAX_READING_LENGTH {
+        return Err(UnitError::TooLong {
+            len: unit_text.len(),
+            max: MAX_READING_LENGTH,
+        });
+    }
     let trimmed = collapse_spaces(unit_text.trim());
     if let Some(u) = unit::find(&trimmed) {
         return Ok(UnitExpr::from_unit(&trimmed, u));
@@ -53,6 +62,7 @@ pub fn parse_unit(unit_text: &str, reading: &str) -> Result<UnitExpr, UnitError>
         return Ok(UnitExpr::from_unit(&trimmed, u));
     }
     let mut parser = Parser {
+        depth: 0,
         src: normal.as_bytes(),
         pos: 0,
         reading,
@@ -87,6 +97,7 @@ fn normalise(s: &str) -> String {
 }
 
 struct Parser<'a> {
+    depth: usize,
     src: &'a [u8],
     pos: usize,
     reading: &'a str,
@@ -102,13 +113,14 @@ impl Parser<'_> {
             }
             self.pos += 1;
             let (d, f) = self.factor()?;
-            if op == b'*' {
-                dim = dim.times(d);
+            let combined = if op == b'*' {
                 factor *= f;
+                dim.checked_times(d)
             } else {
-                dim = dim.per(d);
                 factor /= f;
-            }
+                dim.checked_per(d)
+            };
+            dim = combined.ok_or_else(|| self.too_complex())?;
         }
         Ok((dim, factor))
     }
@@ -116,7 +128,14 @@ impl Parser<'_> {
     fn factor(&mut self) -> Result<(Dimension, f64), UnitError> {
         let (dim, factor) = if self.src.get(self.pos) == Some(&b'(') {
             self.pos += 1;
+            self.depth += 1;
+            if self.depth > MAX_UNIT_DEPTH {
+                return Err(self.bad(&format!(
+                    "brackets in the unit are nested more than {MAX_UNIT_DEPTH} deep"
+                )));
+            }
             let inner = self.expr()?;
+            self.depth -= 1;
             if self.src.get(self.pos) != Some(&b')') {
                 return Err(self.bad("unbalanced bracket in the unit"));
             }
@@ -140,7 +159,8 @@ impl Parser<'_> {
                 .ok()
                 .filter(|n: &i8| (-4..=4).contains(n))
                 .ok_or_else(|| self.bad("a unit power must be a whole number from -4 to 4"))?;
-            return Ok((dim.powi(n), factor.powi(i32::from(n))));
+            let dim = dim.checked_powi(n).ok_or_else(|| self.too_complex())?;
+            return Ok((dim, factor.powi(i32::from(n))));
         }
         Ok((dim, factor))
     }
@@ -174,6 +194,13 @@ impl Parser<'_> {
             text: self.reading.to_string(),
             reason: reason.to_string(),
         }
+    }
+
+    fn too_complex(&self) -> UnitError {
+        self.bad(&format!(
+            "the unit is too complex (a power of a base unit exceeds {})",
+            Dimension::MAX_EXPONENT
+        ))
     }
 
     fn unknown(&self) -> UnitError {
@@ -243,5 +270,65 @@ mod tests {
             parse_unit("m//s", "x"),
             Err(UnitError::UnknownUnit { .. })
         ));
+    }
+
+    #[test]
+    fn brackets_nested_past_the_limit_are_refused_without_recursing() {
+        assert_eq!(
+            parse_unit(&nested_text(MAX_UNIT_DEPTH), "x")
+                .unwrap()
+                .dimension,
+            Dimension::AREA
+        );
+        // 100 levels fit in the length limit; thousands overflowed the stack.
+        for n in [MAX_UNIT_DEPTH + 1, 100] {
+            assert_eq!(
+                parse_unit(&nested_text(n), "1 x").map_err(|e| e.to_string()),
+                Err("`1 x`: brackets in the unit are nested more than 4 deep".to_string())
+            );
+        }
+    }
+
+    #[test]
+    fn a_unit_longer_than_a_reading_is_refused_unparsed() {
+        let text = nested_text(4000);
+        assert_eq!(
+            parse_unit(&text, "x").map_err(|e| e.to_string()),
+            Err(
+                "a reading of 8003 bytes is longer than the limit of 256 bytes \
+                 (expected a number and a unit, e.g. `1500 psi`)"
+                    .to_string()
+            )
+        );
+    }
+
+    fn nested_text(n: usize) -> String {
+        format!("m*{}m{}", "(".repeat(n), ")".repeat(n))
+    }
+
+    #[test]
+    fn powers_beyond_the_limit_are_refused_not_wrapped() {
+        // 33 metres multiplied: one past the limit (in i8 arithmetic, 128 of
+        // them wrapped round to a plain number).
+        for text in [
+            "m^4*".repeat(8) + "m",
+            format!("m^-1/{}", "m^4/".repeat(7) + "m^4"),
+            format!("({})^4", "m^4*".repeat(2) + "m"),
+            "m^4*".repeat(40) + "m",
+        ] {
+            assert_eq!(
+                parse_unit(&text, "1 x").map_err(|e| e.to_string()),
+                Err(
+                    "`1 x`: the unit is too complex (a power of a base unit exceeds 32)"
+                        .to_string()
+                ),
+                "{text}"
+            );
+        }
+        let at_limit = "m^4*".repeat(7) + "m^4";
+        assert_eq!(
+            parse_unit(&at_limit, "1 x").unwrap().dimension,
+            Dimension::new(0, 32, 0, 0)
+        );
     }
 }
