@@ -1045,3 +1045,52 @@ fn a_query_over_the_length_limit_exits_2_before_any_indexing() {
     );
     assert!(!workspace.index().exists());
 }
+
+/// An excluded phrase that matches no note once crashed the search inside
+/// the search library; it must exclude nothing and answer like the plain word.
+#[test]
+fn an_excluded_phrase_that_matches_nothing_excludes_nothing() {
+    let dir = tempfile::tempdir().unwrap();
+    let search = |query: &str| {
+        let output = assert_cmd::Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
+            .current_dir(dir.path())
+            .env("NO_COLOR", "1")
+            .env_remove("SPOOLSLEUTH_CASES")
+            .args([
+                "cases",
+                "search",
+                query,
+                "--limit",
+                "50",
+                "--json",
+                "--index-dir",
+                "index",
+            ])
+            .output()
+            .unwrap();
+        assert_eq!(
+            output.status.code(),
+            Some(0),
+            "{}",
+            String::from_utf8_lossy(&output.stderr)
+        );
+        let json: serde_json::Value = serde_json::from_slice(&output.stdout).unwrap();
+        let mut ids: Vec<String> = json["hits"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .map(|h| h["id"].as_str().unwrap().to_string())
+            .collect();
+        ids.sort();
+        ids
+    };
+    let plain = search("spool");
+    assert!(!plain.is_empty());
+    assert_eq!(search("+spool -\"runs h\""), plain);
+    // An excluded word that does match takes its notes out, and only those.
+    let silt = search("+spool +silt");
+    let without = search("+spool -silt");
+    assert!(!silt.is_empty());
+    assert!(without.iter().all(|id| !silt.contains(id)));
+    assert_eq!(without.len() + silt.len(), plain.len());
+}

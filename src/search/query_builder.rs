@@ -5,11 +5,14 @@
 
 use std::ops::Bound;
 
+use tantivy::collector::DocSetCollector;
 use tantivy::query::{
     AllQuery, BooleanQuery, ConstScoreQuery, Occur, Query, QueryParser, QueryParserError,
-    RangeQuery, TermQuery,
+    RangeQuery, TermQuery, TermSetQuery,
 };
+use tantivy::schema::Value;
 use tantivy::schema::{Field, IndexRecordOption};
+use tantivy::TantivyDocument;
 use tantivy::{Searcher, Term};
 
 use super::{SearchError, SearchRequest, SearchResult, TypoCorrector};
@@ -102,7 +105,54 @@ impl<'s> QueryBuilder<'s> {
             .parser()
             .parse_query(&text)
             .map_err(|e| parser_error(query, &e))?;
-        Ok((parsed, correction.did_you_mean))
+        Ok((self.resolve_exclusions(parsed)?, correction.did_you_mean))
+    }
+
+    /// Turn each excluded clause (`-word`, `-"a phrase"`) into the set of note
+    /// ids it matches, found by a search of its own. Scoring an excluded
+    /// phrase inside the main query trips an internal check of the search
+    /// library when the phrase matches no note; a set of ids excludes the
+    /// same notes with plain term lookups.
+    fn resolve_exclusions(&self, parsed: Box<dyn Query>) -> SearchResult<Box<dyn Query>> {
+        let Some(boolean) = parsed.downcast_ref::<BooleanQuery>() else {
+            return Ok(parsed);
+        };
+        if !boolean
+            .clauses()
+            .iter()
+            .any(|(occur, _)| *occur == Occur::MustNot)
+        {
+            return Ok(parsed);
+        }
+        let mut clauses: Vec<(Occur, Box<dyn Query>)> = Vec::new();
+        for (occur, query) in boolean.clauses() {
+            if *occur != Occur::MustNot {
+                clauses.push((*occur, query.box_clone()));
+                continue;
+            }
+            let ids = self.matching_ids(query.as_ref())?;
+            if !ids.is_empty() {
+                clauses.push((Occur::MustNot, Box::new(TermSetQuery::new(ids))));
+            }
+        }
+        if clauses.iter().all(|(occur, _)| *occur == Occur::MustNot) {
+            // Only exclusions: everything else is what remains.
+            clauses.push((Occur::Must, Box::new(AllQuery)));
+        }
+        Ok(Box::new(BooleanQuery::new(clauses)))
+    }
+
+    /// The id terms of every note `query` matches.
+    fn matching_ids(&self, query: &dyn Query) -> SearchResult<Vec<Term>> {
+        let docs = self.searcher.search(query, &DocSetCollector)?;
+        let mut ids = Vec::with_capacity(docs.len());
+        for address in docs {
+            let doc: TantivyDocument = self.searcher.doc(address)?;
+            if let Some(id) = doc.get_first(self.schema.id).and_then(|v| v.as_str()) {
+                ids.push(Term::from_field_text(self.schema.id, id));
+            }
+        }
+        Ok(ids)
     }
 
     fn parser(&self) -> QueryParser {
