@@ -1181,10 +1181,15 @@ Causes, most likely first
 └───┴──────────────────────────────────────┴─────────────────────────────┴───────┴─────────────────────────────────────┘
 
 Next measurement
-  what:       Relief setting (relief_setting)
-  where/how:  Hydraulic schematic or setting tag; confirm by dead-heading against a gauge only as the maker allows.
-  instrument: schematic or setting tag
-  why:        it is the reading most of the open checks are waiting for: it bears on relief set too low (1 of 5 to take)
+  what:       Load pressure (load_pressure@loaded)
+  when:       running at working load (cutting, pressing, carrying)
+  where/how:  Read it again at the same port and operating point with a second gauge of known accuracy (or swap the two gauges) and check the unit it was written in. Gauge on the test coupling at the actuator port the valve feeds (or at the valve's outlet port), read while the actuator moves at working load.
+  instrument: 0–250 bar / 0–3600 psi gauge
+  why:        the readings cannot all be true (read-load-above-supply): settle the gauges before any component is blamed
+  caution: Fluid injection: A pin-hole jet can pierce skin from about 100 psi (7 bar). Search for leaks with a piece of card or wood, never a hand; wear eye and hand protection. Anyone hit by a jet goes to hospital at once and tells the staff it is an injection injury: the oil must be removed surgically within hours.
+  caution: Gauge and test-hose rating: Use gauges, test hoses and couplings rated above the highest pressure the port can reach (relief setting, or the intensified pressure on a rod side), and a snubber where pressure spikes. Keep a gauge on the pump while you change any setting and never set a relief above the rating of the lowest-rated part.
+  caution: Raised and suspended loads: Lower the load to the ground or block it mechanically (props, transport locks) before opening lines or removing valves. Never leave a raised load on cylinders, hoses or holding valves, and never stand or reach under it.
+  caution: Moving machinery: Keep guards on when the machine runs for a test; read speeds with an optical tachometer from outside the guard. Keep hands, tools and test hoses clear of moving parts and of the actuator's path, and have someone at the emergency stop.
 
 Fix for the leading cause
 Gauge or meter error (gauge-error)
@@ -1193,6 +1198,8 @@ Gauge or meter error (gauge-error)
 Safety
   ! Gauge and test-hose rating: Use gauges, test hoses and couplings rated above the highest pressure the port can reach (relief setting, or the intensified pressure on a rod side), and a snubber where pressure spikes. Keep a gauge on the pump while you change any setting and never set a relief above the rating of the lowest-rated part.
   ! Fluid injection: A pin-hole jet can pierce skin from about 100 psi (7 bar). Search for leaks with a piece of card or wood, never a hand; wear eye and hand protection. Anyone hit by a jet goes to hospital at once and tells the staff it is an injection injury: the oil must be removed surgically within hours.
+  ! Raised and suspended loads: Lower the load to the ground or block it mechanically (props, transport locks) before opening lines or removing valves. Never leave a raised load on cylinders, hoses or holding valves, and never stand or reach under it.
+  ! Moving machinery: Keep guards on when the machine runs for a test; read speeds with an optical tachometer from outside the guard. Keep hands, tools and test hoses clear of moving parts and of the actuator's path, and have someone at the emergency stop.
 
 Similar past cases
 ┌────────────┬────────────┬──────────────────────┬───────────────────────────────────────┬─────────────────────────────┐
@@ -1291,10 +1298,15 @@ const MARKDOWN_REPORT: &str = r#"# Diagnosis: ad-hoc circuit (no machine profile
 
 ## Next measurement
 
-- **What:** Relief setting (relief_setting)
-- **Where/how:** Hydraulic schematic or setting tag; confirm by dead-heading against a gauge only as the maker allows.
-- **Instrument:** schematic or setting tag
-- **Why:** it is the reading most of the open checks are waiting for: it bears on relief set too low (1 of 5 to take)
+- **What:** Load pressure (load_pressure@loaded)
+- **When:** running at working load (cutting, pressing, carrying)
+- **Where/how:** Read it again at the same port and operating point with a second gauge of known accuracy (or swap the two gauges) and check the unit it was written in. Gauge on the test coupling at the actuator port the valve feeds (or at the valve's outlet port), read while the actuator moves at working load.
+- **Instrument:** 0–250 bar / 0–3600 psi gauge
+- **Why:** the readings cannot all be true (read-load-above-supply): settle the gauges before any component is blamed
+- **Caution:** Fluid injection: A pin-hole jet can pierce skin from about 100 psi (7 bar). Search for leaks with a piece of card or wood, never a hand; wear eye and hand protection. Anyone hit by a jet goes to hospital at once and tells the staff it is an injection injury: the oil must be removed surgically within hours.
+- **Caution:** Gauge and test-hose rating: Use gauges, test hoses and couplings rated above the highest pressure the port can reach (relief setting, or the intensified pressure on a rod side), and a snubber where pressure spikes. Keep a gauge on the pump while you change any setting and never set a relief above the rating of the lowest-rated part.
+- **Caution:** Raised and suspended loads: Lower the load to the ground or block it mechanically (props, transport locks) before opening lines or removing valves. Never leave a raised load on cylinders, hoses or holding valves, and never stand or reach under it.
+- **Caution:** Moving machinery: Keep guards on when the machine runs for a test; read speeds with an optical tachometer from outside the guard. Keep hands, tools and test hoses clear of moving parts and of the actuator's path, and have someone at the emergency stop.
 
 ## Fix for the leading cause
 
@@ -1304,6 +1316,8 @@ const MARKDOWN_REPORT: &str = r#"# Diagnosis: ad-hoc circuit (no machine profile
 
 - **Gauge and test-hose rating:** Use gauges, test hoses and couplings rated above the highest pressure the port can reach (relief setting, or the intensified pressure on a rod side), and a snubber where pressure spikes. Keep a gauge on the pump while you change any setting and never set a relief above the rating of the lowest-rated part.
 - **Fluid injection:** A pin-hole jet can pierce skin from about 100 psi (7 bar). Search for leaks with a piece of card or wood, never a hand; wear eye and hand protection. Anyone hit by a jet goes to hospital at once and tells the staff it is an injection injury: the oil must be removed surgically within hours.
+- **Raised and suspended loads:** Lower the load to the ground or block it mechanically (props, transport locks) before opening lines or removing valves. Never leave a raised load on cylinders, hoses or holding valves, and never stand or reach under it.
+- **Moving machinery:** Keep guards on when the machine runs for a test; read speeds with an optical tachometer from outside the guard. Keep hands, tools and test hoses clear of moving parts and of the actuator's path, and have someone at the emergency stop.
 
 ## Similar past cases
 

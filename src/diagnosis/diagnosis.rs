@@ -68,6 +68,10 @@ pub struct ConsistencyProblem {
     pub rule: String,
     /// What is wrong, with the numbers.
     pub message: String,
+    /// The readings it is about (`name` or `name@point`), in the order to
+    /// re-check them; not part of the JSON shape.
+    #[serde(skip)]
+    pub readings: Vec<String>,
 }
 
 /// A past case like the one at hand.
@@ -164,7 +168,11 @@ impl Diagnosis {
             !consistency.is_empty(),
             &history,
         );
-        let next_measurement = choose(base, &causes, &evaluated, &values, &input.skip);
+        // Readings that cannot all be true are settled at the gauge first.
+        let next_measurement = consistency
+            .iter()
+            .find_map(|p| recheck(base, p, &readings))
+            .or_else(|| choose(base, &causes, &evaluated, &values, &input.skip));
         let fix = leading_fix(base, &causes, &consistency);
         let cautions = cautions(base, fix.as_ref(), next_measurement.as_ref());
         Ok(Diagnosis {
@@ -289,6 +297,7 @@ fn gather_readings(
                             text.trim(),
                             100.0 * (old.si() - value.si()).abs() / scale
                         ),
+                        readings: vec![name.clone()],
                     });
                 }
             }
@@ -351,10 +360,55 @@ fn consistency_problems(
             Evaluated::Condition(true) => Some(ConsistencyProblem {
                 rule: r.entry.id.clone(),
                 message: format!("{}: {}", r.entry.title, r.evidence.render(values, units)),
+                readings: r.check.inputs(),
             }),
             _ => None,
         })
         .collect()
+}
+
+/// Re-reading a gauge behind readings that disagree: the first of the
+/// problem's readings that was taken on a gauge (not nameplate data).
+fn recheck(
+    base: &RuleBase,
+    problem: &ConsistencyProblem,
+    readings: &Readings,
+) -> Option<NextMeasurement> {
+    let reading = problem.readings.iter().find(|name| {
+        let id = name.split('@').next().unwrap_or(name);
+        readings.has(name)
+            && base
+                .quantities
+                .get(id)
+                .is_some_and(|q| q.entry.source == crate::rules::QuantitySource::Gauge)
+    })?;
+    let (id, point) = match reading.split_once('@') {
+        Some((n, p)) => (n, Some(p)),
+        None => (reading.as_str(), None),
+    };
+    let q = base.quantities.get(id)?;
+    Some(NextMeasurement {
+        reading: reading.clone(),
+        label: q.entry.label.clone(),
+        point: point
+            .and_then(|p| base.points.iter().find(|x| x.id == p))
+            .map(|p| p.label.clone()),
+        how: format!(
+            "Read it again at the same port and operating point with a second gauge of known accuracy \
+             (or swap the two gauges) and check the unit it was written in. {}",
+            q.entry.measure.clone().unwrap_or_default()
+        )
+        .trim()
+        .to_string(),
+        instrument: q.entry.instrument.clone(),
+        why: format!(
+            "the readings cannot all be true ({}): settle the gauges before any component is blamed",
+            problem.rule
+        ),
+        settles: vec!["gauge-error".to_string()],
+        effort: q.entry.effort,
+        cautions: q.entry.cautions.clone(),
+    })
 }
 
 /// The fix for the leading cause, once the checks make it confirmed or
@@ -479,6 +533,10 @@ mod tests {
         let d = press(&readings, "it bogs down when it closes on the panel");
         assert!(!d.consistency.is_empty());
         assert_eq!(d.fix.as_ref().unwrap().cause, "gauge-error");
+        // The gauges are settled before anything else is measured.
+        let next = d.next_measurement.as_ref().unwrap();
+        assert!(next.reading.ends_with("@loaded"), "{next:?}");
+        assert_eq!(next.settles, ["gauge-error"]);
         assert!(d.causes.iter().all(|c| c.status != CauseStatus::Confirmed));
     }
 
