@@ -22,6 +22,7 @@ pub mod report;
 pub mod rules;
 pub mod search;
 pub mod suggest;
+pub mod text_file;
 pub mod units;
 
 mod run;

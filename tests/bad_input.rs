@@ -142,7 +142,7 @@ fn cases() -> Vec<Case> {
         row("readings file is a folder", DIAGNOSE_FILE, &[("r.yaml/x", b"")], 2,
             Says::Err("error: --readings: r.yaml: cannot read: Is a directory (os error 21)")),
         row("readings file not UTF-8", DIAGNOSE_FILE, &[("r.yaml", b"supply_pressure@loaded: 185 \xb0bar\n")], 2,
-            Says::Err("error: --readings: r.yaml: cannot read: stream did not contain valid UTF-8")),
+            Says::Err("error: --readings: r.yaml: cannot read: the file is not UTF-8 text (at byte 28)")),
         row("readings file misspelt quantity", DIAGNOSE_FILE, &[("r.yaml", b"supply_pressure@loaded: 185 bar\nload_presure@loaded: 140 bar\n")], 2,
             Says::Err("error: r.yaml:2:1: `load_presure@loaded`: unknown quantity `load_presure` (did you mean `load_pressure`?)")),
         row("readings file value without unit", DIAGNOSE_FILE, &[("r.yaml", b"supply_pressure@loaded: 185\n")], 2,
@@ -270,7 +270,7 @@ fn cases() -> Vec<Case> {
         row("add from JSON with readings that are a number", FROM_JSON, &[("d.json", br#"{"machine": "press-4", "complaint": "sags", "symptoms": ["hunting"], "leading_cause": "pump-worn", "fix": "x", "date": "2026-02-03", "readings": 5}"#)], 2,
             Says::Err("error: d.json: field 'readings': expected an object of name to value, or a list")),
         row("add from non-UTF-8 JSON", FROM_JSON, &[("d.json", b"\xff\xfe{}")], 2,
-            Says::Err("error: d.json: stream did not contain valid UTF-8")),
+            Says::Err("error: d.json: the file is not UTF-8 text (at byte 0)")),
         row("add to the built-in notes", &["cases", "add", "--machine", "press-4"], &[], 2,
             Says::Err("error: the built-in demo notes are read-only; choose a notes folder with --cases DIR or SPOOLSLEUTH_CASES")),
 

@@ -45,7 +45,7 @@ fn add_note(folder: &NotesFolder, add: AddArguments) -> Result<ExitStatus, Error
     }
     let from_json = match &add.from_json {
         Some(path) => {
-            let text = std::fs::read_to_string(path).map_err(|e| NotesError::io(path, e))?;
+            let text = crate::text_file::read_text(path).map_err(|e| NotesError::io(path, e))?;
             NoteDraft::from_json(path, &text)?
         }
         None => NoteDraft::default(),

@@ -183,7 +183,7 @@ fn ad_hoc(context: &Context, arguments: &DiagnoseArguments) -> Result<DiagnosisI
 
 fn readings_file(base: &RuleBase, path: &Path) -> Result<Vec<(String, String)>, Error> {
     let name = path.display().to_string();
-    let text = std::fs::read_to_string(path).map_err(|e| Error::Input {
+    let text = crate::text_file::read_text(path).map_err(|e| Error::Input {
         option: "--readings".to_string(),
         message: format!("{name}: cannot read: {e}"),
     })?;

@@ -51,7 +51,7 @@ impl GuideSession {
 
     /// Read a saved session.
     pub fn load(path: &Path) -> Result<Self, SessionError> {
-        let text = std::fs::read_to_string(path).map_err(|source| SessionError::Io {
+        let text = crate::text_file::read_text(path).map_err(|source| SessionError::Io {
             path: path.display().to_string(),
             source,
         })?;

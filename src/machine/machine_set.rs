@@ -52,10 +52,11 @@ impl MachineSet {
             paths.sort();
             for path in paths {
                 let name = path.display().to_string();
-                let text = std::fs::read_to_string(&path).map_err(|source| MachineError::Read {
-                    path: name.clone(),
-                    source,
-                })?;
+                let text =
+                    crate::text_file::read_text(&path).map_err(|source| MachineError::Read {
+                        path: name.clone(),
+                        source,
+                    })?;
                 set.add(parse(&name, &text)?, name);
             }
         }
