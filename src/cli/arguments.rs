@@ -91,16 +91,18 @@ pub enum Command {
     #[command(
         long_about = "Show the tool's job on the invented demo plant: the six demo \
 machines with what their nameplate data settles, then a breakdown call on press-4 with its \
-readings, every rule that applies and what its check says, with the numbers.\n\n\
+readings diagnosed as `diagnose` does it (causes ranked with their numbers, the next \
+measurement, the fix and its cautions, similar past cases), and the command that repeats \
+the call by hand.\n\n\
 Example: spoolsleuth demo --units us"
     )]
     Demo,
     /// Diagnose a complaint from readings on a machine or an ad-hoc circuit.
     Diagnose(Box<DiagnoseArguments>),
-    /// List, show and check machine profiles.
-    Machine(MachineArguments),
     /// Walk through a diagnosis one safe step at a time.
     Guide(super::guide_arguments::GuideArguments),
+    /// List, show and check machine profiles.
+    Machine(MachineArguments),
     /// Load, lint, list and explain the rule base.
     Rules(RulesArguments),
 }
