@@ -9,8 +9,6 @@ use std::fs;
 use std::path::Path;
 use std::process::Output;
 
-use assert_cmd::Command;
-
 /// What the run must print.
 #[derive(Clone, Copy, Debug)]
 enum Says {
@@ -387,18 +385,7 @@ fn snapshot(root: &Path) -> BTreeMap<String, Vec<u8>> {
 }
 
 fn run(root: &Path, args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
-        .current_dir(root)
-        .env_remove("SPOOLSLEUTH_CASES")
-        .env_remove("SPOOLSLEUTH_COLOR")
-        .env_remove("SPOOLSLEUTH_INDEX_DIR")
-        .env_remove("SPOOLSLEUTH_RULES")
-        .env_remove("SPOOLSLEUTH_UNITS")
-        .env_remove("VISUAL")
-        .env("EDITOR", "false")
-        .env("NO_COLOR", "1")
-        .env("HOME", root)
-        .env("XDG_CACHE_HOME", root.join("cache"))
+    crate::harness::spoolsleuth(root)
         .args(args)
         .output()
         .expect("run spoolsleuth")

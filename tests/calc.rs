@@ -16,7 +16,7 @@ const BTU_PER_HOUR: f64 = 1_055.055_852_62 / 3600.0;
 const CST: f64 = 1e-6;
 
 fn spoolsleuth() -> Command {
-    let mut command = Command::new(env!("CARGO_BIN_EXE_spoolsleuth"));
+    let mut command = crate::harness::spoolsleuth_anywhere();
     command.env_remove("NO_COLOR").env("COLUMNS", "100");
     command
 }

@@ -54,15 +54,9 @@ impl Workspace {
 
 /// The binary in `dir` with none of the user's settings.
 fn bare(dir: &Path) -> Command {
-    let mut command = Command::new(env!("CARGO_BIN_EXE_spoolsleuth"));
-    command
-        .current_dir(dir)
-        .env_remove("SPOOLSLEUTH_CASES")
-        .env_remove("SPOOLSLEUTH_INDEX_DIR")
-        .env_remove("NO_COLOR")
-        .env_remove("VISUAL")
-        .env("XDG_CACHE_HOME", dir.join("cache"))
-        .env("HOME", dir);
+    // Colour is decided by the terminal here: stdout is a pipe, so plain.
+    let mut command = crate::harness::spoolsleuth(dir);
+    command.env_remove("NO_COLOR");
     command
 }
 
@@ -630,7 +624,7 @@ fn two_processes_adding_at_once_keep_both_notes() {
     ];
     let children: Vec<_> = (0..2)
         .map(|_| {
-            let mut command = std::process::Command::new(env!("CARGO_BIN_EXE_spoolsleuth"));
+            let mut command = crate::harness::process(workspace.dir.path());
             command
                 .arg("cases")
                 .arg("--cases")
@@ -815,10 +809,7 @@ fn the_default_index_lives_in_the_cache_folder() {
 fn a_note_is_added_straight_from_a_diagnosis() {
     let dir = tempfile::tempdir().unwrap();
     let json = dir.path().join("d.json");
-    let diagnose = assert_cmd::Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
-        .current_dir(dir.path())
-        .env("NO_COLOR", "1")
-        .env_remove("SPOOLSLEUTH_CASES")
+    let diagnose = crate::harness::spoolsleuth(dir.path())
         .arg("diagnose")
         .args(spoolsleuth::diagnosis::DEMO_CALL.arguments())
         .args(["--index-dir", "index", "--json"])
@@ -827,9 +818,7 @@ fn a_note_is_added_straight_from_a_diagnosis() {
     assert_eq!(diagnose.status.code(), Some(0));
     std::fs::write(&json, &diagnose.stdout).unwrap();
     let notes = dir.path().join("notes");
-    let add = assert_cmd::Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
-        .current_dir(dir.path())
-        .env_remove("SPOOLSLEUTH_CASES")
+    let add = crate::harness::spoolsleuth(dir.path())
         .args(["cases", "add", "--cases"])
         .arg(&notes)
         .arg("--from-json")
@@ -1052,10 +1041,7 @@ fn a_query_over_the_length_limit_exits_2_before_any_indexing() {
 fn an_excluded_phrase_that_matches_nothing_excludes_nothing() {
     let dir = tempfile::tempdir().unwrap();
     let search = |query: &str| {
-        let output = assert_cmd::Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
-            .current_dir(dir.path())
-            .env("NO_COLOR", "1")
-            .env_remove("SPOOLSLEUTH_CASES")
+        let output = crate::harness::spoolsleuth(dir.path())
             .args([
                 "cases",
                 "search",

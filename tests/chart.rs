@@ -1,15 +1,9 @@
 //! `spoolsleuth chart` writes the valve characteristic and refuses bad input with
 //! exit code 2 and a message that names the option and quotes the text.
 
-use assert_cmd::Command;
-
 fn chart(args: &[&str]) -> std::process::Output {
     let dir = tempfile::tempdir().unwrap();
-    Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
-        .current_dir(dir.path())
-        .env("NO_COLOR", "1")
-        .env_remove("SPOOLSLEUTH_UNITS")
-        .env_remove("SPOOLSLEUTH_RULES")
+    crate::harness::spoolsleuth(dir.path())
         .arg("chart")
         .args(args)
         .output()

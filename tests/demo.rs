@@ -1,13 +1,9 @@
 //! `spoolsleuth demo` runs from any folder on the built-in data.
 
-use assert_cmd::Command;
-
 #[test]
 fn the_demo_reasons_from_the_readings_to_the_sticking_compensator() {
     let dir = tempfile::tempdir().unwrap();
-    let out = Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
-        .current_dir(dir.path())
-        .env("NO_COLOR", "1")
+    let out = crate::harness::spoolsleuth(dir.path())
         .args(["demo"])
         .output()
         .unwrap();

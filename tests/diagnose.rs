@@ -12,18 +12,7 @@ use tempfile::TempDir;
 
 /// The binary in a fresh temporary folder with none of the user's settings.
 fn spoolsleuth(dir: &Path) -> Command {
-    let mut command = Command::new(env!("CARGO_BIN_EXE_spoolsleuth"));
-    command
-        .current_dir(dir)
-        .env("NO_COLOR", "1")
-        .env_remove("SPOOLSLEUTH_CASES")
-        .env_remove("SPOOLSLEUTH_COLOR")
-        .env_remove("SPOOLSLEUTH_INDEX_DIR")
-        .env_remove("SPOOLSLEUTH_RULES")
-        .env_remove("SPOOLSLEUTH_UNITS")
-        .env("XDG_CACHE_HOME", dir.join("cache"))
-        .env("HOME", dir);
-    command
+    crate::harness::spoolsleuth(dir)
 }
 
 fn run(args: &[&str]) -> Output {
@@ -1337,13 +1326,8 @@ const MARKDOWN_REPORT: &str = r#"# Diagnosis: ad-hoc circuit (no machine profile
 "#;
 
 mod report_files {
-    use assert_cmd::Command;
-
     fn run(dir: &std::path::Path, report: &str) -> std::process::Output {
-        Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
-            .current_dir(dir)
-            .env("NO_COLOR", "1")
-            .env_remove("SPOOLSLEUTH_CASES")
+        super::spoolsleuth(dir)
             .arg("diagnose")
             .args(spoolsleuth::diagnosis::DEMO_CALL.arguments())
             .args(["--index-dir", "index", "--report", report])

@@ -60,14 +60,8 @@ impl Notes {
     }
 
     fn command(&self, args: &[&str]) -> Command {
-        let mut command = Command::new(env!("CARGO_BIN_EXE_spoolsleuth"));
+        let mut command = crate::harness::process(self.dir.path());
         command
-            .current_dir(self.dir.path())
-            .env_remove("SPOOLSLEUTH_CASES")
-            .env_remove("SPOOLSLEUTH_INDEX_DIR")
-            .env("NO_COLOR", "1")
-            .env("HOME", self.dir.path())
-            .env("XDG_CACHE_HOME", self.dir.path().join("cache"))
             .arg("cases")
             .arg("--cases")
             .arg(self.folder())

@@ -4,16 +4,10 @@
 
 use std::path::Path;
 
-use assert_cmd::Command;
-
 fn guide(dir: &Path, answers: &[&str], extra: &[&str]) -> (i32, String, String) {
     let answers_file = dir.join("answers.txt");
     std::fs::write(&answers_file, answers.join("\n") + "\n").unwrap();
-    let out = Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
-        .current_dir(dir)
-        .env("NO_COLOR", "1")
-        .env_remove("SPOOLSLEUTH_CASES")
-        .env_remove("SPOOLSLEUTH_UNITS")
+    let out = crate::harness::spoolsleuth(dir)
         .args(["guide", "--answers"])
         .arg(&answers_file)
         .arg("--session")

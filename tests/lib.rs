@@ -7,6 +7,7 @@ mod demo;
 mod diagnose;
 mod faults;
 mod guide;
+mod harness;
 mod machine;
 mod report_render;
 mod rules;

@@ -4,19 +4,12 @@
 use std::path::Path;
 use std::process::Output;
 
-use assert_cmd::Command;
 use serde_json::Value;
 use tempfile::TempDir;
 
 /// The binary in `dir` with none of the user's settings.
 fn spoolsleuth(dir: &Path, args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_spoolsleuth"))
-        .current_dir(dir)
-        .env("NO_COLOR", "1")
-        .env_remove("SPOOLSLEUTH_CASES")
-        .env_remove("SPOOLSLEUTH_RULES")
-        .env_remove("SPOOLSLEUTH_UNITS")
-        .env("HOME", dir)
+    crate::harness::spoolsleuth(dir)
         .arg("machine")
         .args(args)
         .output()

@@ -56,14 +56,7 @@ impl Workspace {
 
     /// `spoolsleuth` run in the workspace with a clean environment.
     fn command(&self) -> Command {
-        let mut command = Command::new(env!("CARGO_BIN_EXE_spoolsleuth"));
-        command
-            .current_dir(self.dir.path())
-            .env_remove("SPOOLSLEUTH_RULES")
-            .env_remove("SPOOLSLEUTH_COLOR")
-            .env_remove("SPOOLSLEUTH_UNITS")
-            .env("NO_COLOR", "1");
-        command
+        crate::harness::spoolsleuth(self.dir.path())
     }
 
     /// `spoolsleuth ARGS` with no user rule folder.
