@@ -24,7 +24,7 @@ pub use note_draft::{DraftOrigin, NoteDraft};
 pub use note_editor::NoteEditor;
 pub use note_id::NoteId;
 pub use notes_error::{NoteError, NotesError};
-pub use notes_folder::{NoteFile, NotesFolder, MAX_NOTE_BYTES};
+pub use notes_folder::{is_note_file_name, NoteFile, NotesFolder, MAX_NOTE_BYTES};
 pub use reading::Reading;
 pub use vocabulary::{nearest, CAUSE_IDS, SYMPTOM_IDS};
 

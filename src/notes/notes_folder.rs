@@ -139,6 +139,26 @@ impl NotesFolder {
         }
     }
 
+    /// The note file `name` with its size and time as it is now, or `None`
+    /// when there is no such note file (removed, a folder, a dangling link,
+    /// not a note's name). The built-in notes never change.
+    pub fn file(&self, name: &str) -> Option<NoteFile> {
+        if !is_note_file_name(name) || !is_plain_file_name(name) {
+            return None;
+        }
+        match self {
+            NotesFolder::Embedded => embedded_files().find(|f| f.name == name),
+            NotesFolder::Disk(dir) => {
+                let metadata = fs::metadata(dir.join(name)).ok()?;
+                metadata.is_file().then(|| NoteFile {
+                    mtime_ns: mtime_ns(&metadata),
+                    name: name.to_string(),
+                    size: metadata.len(),
+                })
+            }
+        }
+    }
+
     /// The note with this id and its path, or the nearest id as a suggestion.
     pub fn find(&self, id: &str) -> NotesResult<(Note, PathBuf)> {
         let name = format!("{id}.md");
@@ -296,11 +316,27 @@ fn scan_dir(dir: &Path) -> NotesResult<Vec<NoteFile>> {
     }))
 }
 
-/// The name of a note file entry (`*.md`, not hidden, UTF-8), from the
-/// directory listing alone.
+/// True for the name of a note file: `*.md` and not hidden (editors' and
+/// our own temporary files start with a dot).
+pub fn is_note_file_name(name: &str) -> bool {
+    !name.starts_with('.') && name.ends_with(".md")
+}
+
+/// The name of a note file entry (UTF-8, see [`is_note_file_name`]), from
+/// the directory listing alone.
 fn note_name(entry: &fs::DirEntry) -> Option<String> {
     let name = entry.file_name().into_string().ok()?;
-    (!name.starts_with('.') && name.ends_with(".md")).then_some(name)
+    is_note_file_name(&name).then_some(name)
+}
+
+/// A file's modification time in nanoseconds since the Unix epoch (0 when
+/// the system cannot tell).
+fn mtime_ns(metadata: &fs::Metadata) -> u128 {
+    metadata
+        .modified()
+        .ok()
+        .and_then(|t| t.duration_since(UNIX_EPOCH).ok())
+        .map_or(0, |d| d.as_nanos())
 }
 
 /// The listed note file with its size and time, or `None` for a folder, a
@@ -318,13 +354,8 @@ fn note_file(entry: &fs::DirEntry) -> Option<NoteFile> {
     if !metadata.is_file() {
         return None;
     }
-    let mtime_ns = metadata
-        .modified()
-        .ok()
-        .and_then(|t| t.duration_since(UNIX_EPOCH).ok())
-        .map_or(0, |d| d.as_nanos());
     Some(NoteFile {
-        mtime_ns,
+        mtime_ns: mtime_ns(&metadata),
         name,
         size: metadata.len(),
     })
@@ -378,6 +409,26 @@ mod tests {
         assert_eq!(
             err.to_string(),
             "no note with id '2024-01-02-press-4-sga' (did you mean '2024-01-02-press-4-sag'?)"
+        );
+    }
+
+    #[test]
+    fn one_note_file_is_looked_up_by_name() {
+        let dir = tempfile::tempdir().unwrap();
+        fs::write(dir.path().join("a.md"), "12345").unwrap();
+        fs::write(dir.path().join(".a.md.swp"), "x").unwrap();
+        fs::create_dir(dir.path().join("folder.md")).unwrap();
+        let folder = NotesFolder::Disk(dir.path().to_path_buf());
+        let file = folder.file("a.md").unwrap();
+        assert_eq!((file.name.as_str(), file.size), ("a.md", 5));
+        assert!(file.mtime_ns > 0);
+        for name in ["gone.md", ".a.md.swp", "folder.md", "../a.md", "a.txt"] {
+            assert_eq!(folder.file(name), None, "{name}");
+        }
+        let first = &demo_notes()[0];
+        assert_eq!(
+            NotesFolder::Embedded.file(first.0).map(|f| f.size),
+            Some(first.1.len() as u64)
         );
     }
 
