@@ -24,6 +24,7 @@ pub mod search;
 pub mod suggest;
 pub mod text_file;
 pub mod units;
+pub mod watch;
 
 mod run;
 
