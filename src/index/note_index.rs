@@ -24,6 +24,7 @@ use super::{
     ManifestEntry, NoteSchema, SyncReport,
 };
 use crate::notes::{Note, NoteFile, NotesError, NotesFolder};
+use crate::watch::{ask_watcher, WatchAnswer, WatchCursor, WatchPaths};
 
 /// Memory budget of the index writer for a full build, in bytes, for its
 /// one indexing thread. With the merge limits below, a full build of 100k
@@ -165,6 +166,31 @@ impl NoteIndex {
     fn open_dir(folder: NotesFolder, dir: &Path) -> IndexResult<(NoteIndex, SyncReport)> {
         fs::create_dir_all(dir).map_err(|e| IndexError::io(dir, e))?;
         refuse_foreign_folder(dir)?;
+        let stored = WatchCursor::load(dir);
+        let reply = match &folder {
+            NotesFolder::Disk(notes) => ask_watcher(notes, dir, stored),
+            NotesFolder::Embedded => None,
+        };
+        let Some(reply) = reply else {
+            return Self::open_checking_every_note(folder, dir, None);
+        };
+        match reply.answer {
+            WatchAnswer::Names { changed, linked } => {
+                let cursors = (stored, reply.cursor);
+                Self::open_watched(folder, dir, changed, &linked, cursors)
+            }
+            WatchAnswer::Rescan => Self::open_checking_every_note(folder, dir, Some(reply.cursor)),
+        }
+    }
+
+    /// Bring the index up to date by comparing every note file's size and
+    /// time with the manifest. With a watcher's `cursor` (taken before the
+    /// listing), save it afterwards so the next search can ask the watcher.
+    fn open_checking_every_note(
+        folder: NotesFolder,
+        dir: &Path,
+        cursor: Option<WatchCursor>,
+    ) -> IndexResult<(NoteIndex, SyncReport)> {
         // Fast path without our lock: an intact index with nothing to do.
         // Listing the notes and opening the index run side by side.
         let bytes = read_manifest_bytes(dir);
@@ -182,6 +208,7 @@ impl NoteIndex {
                     broken: broken_of(&folder, view.notes.iter().filter_map(|n| n.broken)),
                     ..SyncReport::default()
                 };
+                save_cursor(dir, cursor);
                 return Ok((index.into_note_index(folder, dir)?, report));
             }
         }
@@ -190,25 +217,99 @@ impl NoteIndex {
         let bytes = read_manifest_bytes(dir);
         let reopened =
             try_open(dir, bytes.as_deref()).map(|(index, view)| (index, view.to_manifest()));
-        match reopened {
-            Ok((index, manifest)) => index
-                .into_note_index(folder, dir)?
-                .apply_changes(manifest, &files),
+        let opened = match reopened {
+            Ok((index, manifest)) => {
+                let change = changes(&manifest, &files);
+                index
+                    .into_note_index(folder, dir)?
+                    .apply_changes(manifest, change)
+            }
             Err(reason) => Self::rebuild(folder, dir, reason),
-        }
+        }?;
+        save_cursor(dir, cursor);
+        Ok(opened)
     }
 
-    /// Index new and edited notes of `files` (listed just before) and drop
-    /// deleted ones; caller holds the lock.
+    /// Bring the index up to date from a watcher's answer: read the notes
+    /// it saw change (whatever their size and time say), compare the linked
+    /// notes' size and time as a full check would, and look at no other
+    /// note. Save the watcher's cursor (`cursors.1`, the stored one being
+    /// `cursors.0`) once the index holds the changes.
+    fn open_watched(
+        folder: NotesFolder,
+        dir: &Path,
+        changed: Vec<String>,
+        linked: &[String],
+        cursors: (Option<WatchCursor>, WatchCursor),
+    ) -> IndexResult<(NoteIndex, SyncReport)> {
+        let (stored, cursor) = cursors;
+        let bytes = read_manifest_bytes(dir);
+        let mut names = changed;
+        match try_open(dir, bytes.as_deref()) {
+            Ok((index, view)) => {
+                let known: HashMap<&str, (u64, u128)> = if linked.is_empty() {
+                    HashMap::new()
+                } else {
+                    view.notes
+                        .iter()
+                        .map(|n| (n.name, (n.size, n.mtime_ns)))
+                        .collect()
+                };
+                names.extend(
+                    linked
+                        .iter()
+                        .filter(|name| {
+                            let now = folder.file(name).map(|f| (f.size, f.mtime_ns));
+                            now.is_none() || now != known.get(name.as_str()).copied()
+                        })
+                        .cloned(),
+                );
+                if names.is_empty() {
+                    let report = SyncReport {
+                        broken: broken_of(&folder, view.notes.iter().filter_map(|n| n.broken)),
+                        ..SyncReport::default()
+                    };
+                    if stored != Some(cursor) {
+                        save_cursor(dir, Some(cursor));
+                    }
+                    return Ok((index.into_note_index(folder, dir)?, report));
+                }
+            }
+            // Rebuilt below under the lock, unless another process has
+            // just done so: then every name given needs a look.
+            Err(_) => names.extend(linked.iter().cloned()),
+        }
+        let _lock = lock(dir)?;
+        let bytes = read_manifest_bytes(dir);
+        let reopened =
+            try_open(dir, bytes.as_deref()).map(|(index, view)| (index, view.to_manifest()));
+        let opened = match reopened {
+            Ok((index, manifest)) => {
+                let change = changes_of_names(&folder, &manifest, names);
+                index
+                    .into_note_index(folder, dir)?
+                    .apply_changes(manifest, change)
+            }
+            // The whole folder is listed for a rebuild; the cursor still
+            // holds, as it was taken before the listing.
+            Err(reason) => Self::rebuild(folder, dir, reason),
+        }?;
+        save_cursor(dir, Some(cursor));
+        Ok(opened)
+    }
+
+    /// Index the new and edited notes of `change` and drop its deleted
+    /// ones; caller holds the lock. The manifest is written only when
+    /// something in it changed.
     fn apply_changes(
         self,
         mut manifest: Manifest,
-        files: &[NoteFile],
+        change: Changes,
     ) -> IndexResult<(NoteIndex, SyncReport)> {
         let dir = self.dir.clone().unwrap_or_default();
         let mut report = SyncReport::default();
         let mut writer: Option<IndexWriter> = None;
-        let change = changes(&manifest, files);
+        let mut dirty = false;
         let mut removed = change.removed;
         let mut unreadable = Vec::new();
         for file in &change.changed {
@@ -232,6 +333,7 @@ impl NoteIndex {
                             &name_to_id(&file.name),
                         ));
                         manifest.entries.remove(&file.name);
+                        dirty = true;
                         report.removed += 1;
                     }
                     unreadable.push(error.to_string());
@@ -247,8 +349,11 @@ impl NoteIndex {
             };
             if known.is_some_and(|k| k.hash == hash) {
                 // Touched but not changed: remember the new time only.
-                let broken = known.and_then(|k| k.broken.clone());
-                manifest.entries.insert(file.name.clone(), entry(broken));
+                let same = entry(known.and_then(|k| k.broken.clone()));
+                if known != Some(&same) {
+                    manifest.entries.insert(file.name.clone(), same);
+                    dirty = true;
+                }
                 continue;
             }
             let writer = self.writer(&mut writer, &dir)?;
@@ -287,7 +392,7 @@ impl NoteIndex {
             manifest.index_files = index_fingerprint(&dir)?;
             manifest.save(&dir)?;
             self.reader.reload().map_err(|e| tantivy(&dir, e))?;
-        } else {
+        } else if dirty {
             manifest.save(&dir)?;
         }
         report.broken = broken_of(
@@ -524,14 +629,17 @@ fn manual_reader(index: &Index) -> tantivy::Result<IndexReader> {
         .try_into()
 }
 
-/// Files added or changed since the manifest, and names no longer there.
+/// Files to read because they are new or may have changed, and names in
+/// the manifest whose files are gone.
 #[derive(Debug, Default)]
-struct Changes<'f> {
-    changed: Vec<&'f NoteFile>,
+struct Changes {
+    changed: Vec<NoteFile>,
     removed: Vec<String>,
 }
 
-fn changes<'f>(manifest: &Manifest, files: &'f [NoteFile]) -> Changes<'f> {
+/// The changes between the manifest and a listing of every note file: a
+/// file whose size or time moved is read again.
+fn changes(manifest: &Manifest, files: &[NoteFile]) -> Changes {
     let changed = files
         .iter()
         .filter(|f| {
@@ -540,6 +648,7 @@ fn changes<'f>(manifest: &Manifest, files: &'f [NoteFile]) -> Changes<'f> {
                 .get(&f.name)
                 .is_none_or(|e| e.size != f.size || e.mtime_ns != f.mtime_ns)
         })
+        .cloned()
         .collect();
     let present: std::collections::HashSet<&str> = files.iter().map(|f| f.name.as_str()).collect();
     let removed = manifest
@@ -549,6 +658,31 @@ fn changes<'f>(manifest: &Manifest, files: &'f [NoteFile]) -> Changes<'f> {
         .cloned()
         .collect();
     Changes { changed, removed }
+}
+
+/// The changes among `names` (a watcher saw them change): each that is a
+/// note file now is read again whatever its size and time, each that is
+/// not is dropped from the index.
+fn changes_of_names(folder: &NotesFolder, manifest: &Manifest, mut names: Vec<String>) -> Changes {
+    names.sort();
+    names.dedup();
+    let mut change = Changes::default();
+    for name in names {
+        match folder.file(&name) {
+            Some(file) => change.changed.push(file),
+            None if manifest.entries.contains_key(&name) => change.removed.push(name),
+            None => {}
+        }
+    }
+    change
+}
+
+/// Save a watcher's cursor beside the index. A cursor that cannot be saved
+/// (a full disk) only makes the next search ask about more notes.
+fn save_cursor(dir: &Path, cursor: Option<WatchCursor>) {
+    if let Some(cursor) = cursor {
+        let _ = cursor.save(dir);
+    }
 }
 
 fn name_to_id(name: &str) -> String {
@@ -606,6 +740,7 @@ fn is_own_file(name: &str) -> bool {
         || name == OLD_MANIFEST_FILE
         || name == LOCK_FILE
         || name.starts_with(".spoolsleuth-manifest-")
+        || WatchPaths::is_own_name(name)
 }
 
 /// Size and modification time of the index's files (not its lock files).
