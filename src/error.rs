@@ -86,6 +86,9 @@ pub enum Error {
     /// A reading or unit that could not be understood.
     #[error(transparent)]
     Units(#[from] UnitError),
+    /// A watcher of the notes folder could not start or had to stop.
+    #[error(transparent)]
+    Watch(#[from] crate::watch::WatchError),
 }
 
 impl Error {

@@ -11,31 +11,31 @@ use assert_cmd::Command;
 use tempfile::TempDir;
 
 /// A hermetic workspace: a notes folder, an index folder and a cache home.
-struct Workspace {
-    dir: TempDir,
+pub(crate) struct Workspace {
+    pub(crate) dir: TempDir,
 }
 
 impl Workspace {
-    fn new() -> Self {
+    pub(crate) fn new() -> Self {
         let dir = tempfile::tempdir().expect("temp dir");
         fs::create_dir(dir.path().join("notes")).expect("notes dir");
         Workspace { dir }
     }
 
-    fn notes(&self) -> PathBuf {
+    pub(crate) fn notes(&self) -> PathBuf {
         self.dir.path().join("notes")
     }
 
-    fn index(&self) -> PathBuf {
+    pub(crate) fn index(&self) -> PathBuf {
         self.dir.path().join("index")
     }
 
-    fn write(&self, name: &str, text: &str) {
+    pub(crate) fn write(&self, name: &str, text: &str) {
         fs::write(self.notes().join(name), text).expect("write note");
     }
 
     /// The command with the notes and index folders of this workspace.
-    fn cases(&self, args: &[&str]) -> Command {
+    pub(crate) fn cases(&self, args: &[&str]) -> Command {
         let mut command = bare(self.dir.path());
         command
             .arg("cases")
@@ -47,7 +47,7 @@ impl Workspace {
         command
     }
 
-    fn run(&self, args: &[&str]) -> Output {
+    pub(crate) fn run(&self, args: &[&str]) -> Output {
         self.cases(args).output().expect("run spoolsleuth")
     }
 }
@@ -60,16 +60,16 @@ fn bare(dir: &Path) -> Command {
     command
 }
 
-fn stdout(output: &Output) -> String {
+pub(crate) fn stdout(output: &Output) -> String {
     String::from_utf8_lossy(&output.stdout).into_owned()
 }
 
-fn stderr(output: &Output) -> String {
+pub(crate) fn stderr(output: &Output) -> String {
     String::from_utf8_lossy(&output.stderr).into_owned()
 }
 
 #[track_caller]
-fn status(output: &Output, code: i32) {
+pub(crate) fn status(output: &Output, code: i32) {
     assert_eq!(
         output.status.code(),
         Some(code),
@@ -79,7 +79,7 @@ fn status(output: &Output, code: i32) {
     );
 }
 
-fn ids(output: &Output) -> Vec<String> {
+pub(crate) fn ids(output: &Output) -> Vec<String> {
     let json: serde_json::Value = serde_json::from_slice(&output.stdout).expect("search JSON");
     json["hits"]
         .as_array()
@@ -89,14 +89,21 @@ fn ids(output: &Output) -> Vec<String> {
         .collect()
 }
 
-fn note(machine: &str, date: &str, title: &str, symptom: &str, cause: &str, body: &str) -> String {
+pub(crate) fn note(
+    machine: &str,
+    date: &str,
+    title: &str,
+    symptom: &str,
+    cause: &str,
+    body: &str,
+) -> String {
     format!(
         "---\ndate: {date}\nmachine: {machine}\ntitle: {title}\nsymptoms: [{symptom}]\ncause: {cause}\n\
          fix: cleaned and reset\ndowntime: 90 min\nreadings:\n  supply: 160 bar\ntech: JT\n---\n\n{body}\n"
     )
 }
 
-fn two_notes(workspace: &Workspace) {
+pub(crate) fn two_notes(workspace: &Workspace) {
     workspace.write(
         "2024-03-02-press-4-sag.md",
         &note(

@@ -12,3 +12,4 @@ mod machine;
 mod report_render;
 mod rules;
 mod safety;
+mod watch;

@@ -61,7 +61,25 @@ pub enum CasesCommand {
     Show(ShowArguments),
     /// Causes by machine and by symptom, downtime, repeat offenders.
     Stats(StatsArguments),
+    /// Keep watch on the notes folder so that searches skip checking every note.
+    #[command(
+        long_about = "Keep watch on the notes folder (Linux) until Ctrl-C, so that each search \
+                            of it asks this watcher which notes changed instead of checking the \
+                            size and time of every note file. Worth it from some ten thousand \
+                            notes on; without a watcher every search still sees every new, \
+                            edited and deleted note, only more slowly.\n\nNotes that are links, \
+                            or files with other names, are checked on every search. Folders on \
+                            network file systems are refused: changes made from other machines \
+                            are not seen there.\n\nExample:\n  spoolsleuth cases --cases ~/shop-notes \
+                            watch"
+    )]
+    Watch(WatchArguments),
 }
+
+/// Arguments of `cases watch` (the notes and index folders are the global
+/// `--cases` and `--index-dir`).
+#[derive(Debug, Args)]
+pub struct WatchArguments {}
 
 /// Arguments of `cases add`.
 #[derive(Debug, Args)]

@@ -4,6 +4,8 @@
 
 use std::io::{IsTerminal, Write};
 use std::path::PathBuf;
+use std::sync::atomic::{AtomicBool, Ordering};
+use std::sync::Arc;
 
 use comfy_table::{presets, Cell, ContentArrangement, Table};
 
@@ -15,6 +17,7 @@ use crate::error::{Error, ExitStatus};
 use crate::index::{IndexError, IndexLocation, NoteIndex, SyncReport};
 use crate::notes::{Downtime, DraftOrigin, Note, NoteDraft, NoteEditor, NotesError, NotesFolder};
 use crate::search::{search, CaseStats, CauseCount, HighlightStyle, SearchRequest, SearchResults};
+use crate::watch::{FolderWatcher, WatchError};
 
 /// Table width when stdout is not a terminal, so that snippets wrap.
 const PIPE_WIDTH: u16 = 120;
@@ -36,7 +39,59 @@ pub fn execute(context: &Context, arguments: CasesArguments) -> Result<ExitStatu
         CasesCommand::Search(search) => search_notes(folder, index_dir, &search, style),
         CasesCommand::Show(show) => show_note(&folder, &show, style),
         CasesCommand::Stats(stats) => show_stats(folder, index_dir, &stats),
+        CasesCommand::Watch(_) => watch_notes(folder, index_dir),
     }
+}
+
+/// Bring the index up to date, then keep watch on the notes folder and
+/// answer searches until Ctrl-C (or the folder goes away).
+fn watch_notes(folder: NotesFolder, index_dir: Option<PathBuf>) -> Result<ExitStatus, Error> {
+    let NotesFolder::Disk(notes) = &folder else {
+        return Err(WatchError::Embedded.into());
+    };
+    let location = IndexLocation::resolve(&folder, index_dir.as_deref())?;
+    let IndexLocation::Dir(dir) = &location else {
+        return Err(WatchError::MemoryIndex.into());
+    };
+    // Opened first so that the index folder is known to be ours before the
+    // watcher puts its files there.
+    let (_, report) = NoteIndex::open(folder.clone(), &location)?;
+    report_sync(&report);
+    let (watcher, started) = FolderWatcher::start(notes, dir)?;
+    let stop = Arc::new(AtomicBool::new(false));
+    let on_signal = Arc::clone(&stop);
+    ctrlc::set_handler(move || on_signal.store(true, Ordering::Relaxed))
+        .map_err(|e| Error::Io(std::io::Error::other(format!("cannot catch Ctrl-C: {e}"))))?;
+    std::thread::scope(|scope| {
+        let running = scope.spawn(|| watcher.run(&stop));
+        // Through the watcher now, so its cursor is saved beside the index
+        // and the next search asks it.
+        let synced = NoteIndex::open(folder.clone(), &location);
+        if let Err(error) = synced {
+            stop.store(true, Ordering::Relaxed);
+            let _ = running.join();
+            return Err(error.into());
+        }
+        let links = match started.linked {
+            0 => String::new(),
+            1 => "; 1 linked note is checked on every search".to_string(),
+            n => format!("; {n} linked notes are checked on every search"),
+        };
+        eprintln!(
+            "watching {} notes in {}{links}\nsearches of these notes ask this watcher instead of checking every note; stop with Ctrl-C",
+            started.notes,
+            notes.display()
+        );
+        let result = running.join().unwrap_or_else(|_| {
+            Err(WatchError::Io {
+                path: started.socket.clone(),
+                source: std::io::Error::other("the watcher stopped unexpectedly"),
+            })
+        });
+        result?;
+        eprintln!("stopped watching {}", notes.display());
+        Ok(ExitStatus::Success)
+    })
 }
 
 fn add_note(folder: &NotesFolder, add: AddArguments) -> Result<ExitStatus, Error> {
