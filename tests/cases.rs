@@ -490,7 +490,7 @@ fn an_index_from_another_schema_version_is_rebuilt() {
     // The manifest starts with a text line naming its schema version.
     let manifest = workspace.index().join("spoolsleuth-manifest.bin");
     let mut bytes = fs::read(&manifest).unwrap();
-    let header = b"spoolsleuth-index-manifest 1\n";
+    let header = b"spoolsleuth-index-manifest 2\n";
     assert!(bytes.starts_with(header));
     bytes[header.len() - 2] = b'0';
     fs::write(&manifest, bytes).unwrap();

@@ -6,11 +6,14 @@
 //! A search reads it on every run, so it is a compact binary file loaded with
 //! one read and looked at in place (names are borrowed from the bytes, not
 //! copied): a text header line with the schema version, then little-endian
-//! records. Written atomically (temp file + rename) after each commit.
+//! fields. A summary comes first (how many notes are indexed, the messages
+//! of the broken ones, the index files), so a search that needs no note's
+//! record reads only that; the records follow. Written atomically (temp
+//! file + rename) after each commit.
 
 use std::collections::BTreeMap;
 use std::fs;
-use std::io::Write;
+use std::io::{BufRead, BufReader, Read, Write};
 use std::path::Path;
 
 use super::{IndexError, IndexResult, SCHEMA_VERSION};
@@ -75,6 +78,101 @@ pub struct ManifestView<'a> {
     pub notes: Vec<NoteRecord<'a>>,
 }
 
+/// The summary at the head of a manifest: enough to check an index whose
+/// notes are known not to have changed.
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
+pub struct ManifestSummary {
+    /// The messages of the notes skipped as malformed.
+    pub broken: Vec<String>,
+    /// Notes in the index.
+    pub indexed: usize,
+    /// The index files as they were after the last write.
+    pub index_files: IndexFingerprint,
+}
+
+/// The longest summary read: far more than thousands of broken notes'
+/// messages take, and a bound on what a damaged length can ask for.
+const MAX_SUMMARY_BYTES: u64 = 64 * 1024 * 1024;
+
+impl ManifestSummary {
+    /// Read only the header and summary of the manifest in `dir`.
+    pub fn read(dir: &Path) -> Result<ManifestSummary, ManifestProblem> {
+        let file = match fs::File::open(dir.join(MANIFEST_FILE)) {
+            Ok(file) => file,
+            Err(e) if e.kind() == std::io::ErrorKind::NotFound => {
+                return Err(ManifestProblem::Missing)
+            }
+            Err(e) => return Err(ManifestProblem::Unreadable(e.to_string())),
+        };
+        let unreadable = |e: std::io::Error| ManifestProblem::Unreadable(e.to_string());
+        let mut file = BufReader::new(file);
+        let mut header = Vec::new();
+        file.by_ref()
+            .take(256)
+            .read_until(b'\n', &mut header)
+            .map_err(unreadable)?;
+        check_header(&header)?;
+        let mut length = [0u8; 8];
+        file.read_exact(&mut length)
+            .map_err(|_| ManifestProblem::Unreadable("cut short".into()))?;
+        let length = u64::from_le_bytes(length);
+        if length > MAX_SUMMARY_BYTES {
+            return Err(ManifestProblem::Unreadable("summary too long".into()));
+        }
+        let mut summary = Vec::new();
+        file.take(length)
+            .read_to_end(&mut summary)
+            .map_err(unreadable)?;
+        if summary.len() as u64 != length {
+            return Err(ManifestProblem::Unreadable("cut short".into()));
+        }
+        let mut reader = Reader { bytes: &summary };
+        let parsed = parse_summary(&mut reader)?;
+        if !reader.bytes.is_empty() {
+            return Err(ManifestProblem::Unreadable("bad summary".into()));
+        }
+        Ok(parsed)
+    }
+}
+
+/// Check the header line (with its newline) names this schema version.
+fn check_header(line: &[u8]) -> Result<(), ManifestProblem> {
+    let line = line
+        .strip_suffix(b"\n")
+        .ok_or_else(|| ManifestProblem::Unreadable("no header".into()))?;
+    let header =
+        std::str::from_utf8(line).map_err(|_| ManifestProblem::Unreadable("bad header".into()))?;
+    let version = header
+        .strip_prefix(MAGIC)
+        .map(str::trim)
+        .ok_or_else(|| ManifestProblem::Unreadable("bad header".into()))?;
+    if version != SCHEMA_VERSION.to_string() {
+        return Err(ManifestProblem::OtherVersion(version.to_string()));
+    }
+    Ok(())
+}
+
+fn parse_summary(reader: &mut Reader<'_>) -> Result<ManifestSummary, ManifestProblem> {
+    let indexed = reader.u32()? as usize;
+    let mut broken = Vec::new();
+    for _ in 0..reader.u32()? {
+        let len = reader.u32()? as usize;
+        broken.push(reader.str_of(len)?.to_string());
+    }
+    let mut index_files = IndexFingerprint::new();
+    for _ in 0..reader.u32()? {
+        let name = reader.text()?;
+        let size = reader.u64()?;
+        let mtime = reader.u128()?;
+        index_files.insert(name.to_string(), (size, mtime));
+    }
+    Ok(ManifestSummary {
+        broken,
+        indexed,
+        index_files,
+    })
+}
+
 /// Why a manifest could not be used.
 #[derive(Debug, PartialEq, Eq)]
 pub enum ManifestProblem {
@@ -102,18 +200,19 @@ impl<'a> ManifestView<'a> {
             .iter()
             .position(|b| *b == b'\n')
             .ok_or_else(|| ManifestProblem::Unreadable("no header".into()))?;
-        let header = std::str::from_utf8(&bytes[..newline])
-            .map_err(|_| ManifestProblem::Unreadable("bad header".into()))?;
-        let version = header
-            .strip_prefix(MAGIC)
-            .map(str::trim)
-            .ok_or_else(|| ManifestProblem::Unreadable("bad header".into()))?;
-        if version != SCHEMA_VERSION.to_string() {
-            return Err(ManifestProblem::OtherVersion(version.to_string()));
-        }
+        check_header(&bytes[..=newline])?;
         let mut reader = Reader {
             bytes: &bytes[newline + 1..],
         };
+        let length = usize::try_from(reader.u64()?)
+            .map_err(|_| ManifestProblem::Unreadable("summary too long".into()))?;
+        let mut summary = Reader {
+            bytes: reader.take(length)?,
+        };
+        let summary_fields = parse_summary(&mut summary)?;
+        if !summary.bytes.is_empty() {
+            return Err(ManifestProblem::Unreadable("bad summary".into()));
+        }
         let count = reader.u32()? as usize;
         // Each record takes at least 38 bytes: a bad count cannot over-allocate.
         let mut notes = Vec::with_capacity(count.min(reader.bytes.len() / 38));
@@ -134,17 +233,19 @@ impl<'a> ManifestView<'a> {
                 size,
             });
         }
-        let mut index_files = IndexFingerprint::new();
-        for _ in 0..reader.u32()? {
-            let name = reader.text()?;
-            let size = reader.u64()?;
-            let mtime = reader.u128()?;
-            index_files.insert(name.to_string(), (size, mtime));
-        }
         if !reader.bytes.is_empty() {
             return Err(ManifestProblem::Unreadable("trailing bytes".into()));
         }
-        Ok(ManifestView { index_files, notes })
+        let view = ManifestView {
+            index_files: summary_fields.index_files,
+            notes,
+        };
+        if view.indexed() != summary_fields.indexed {
+            return Err(ManifestProblem::Unreadable(
+                "its summary disagrees with its records".into(),
+            ));
+        }
+        Ok(view)
     }
 
     /// The number of notes that are in the index (not skipped as broken).
@@ -224,7 +325,9 @@ impl<'a> Reader<'a> {
 #[derive(Debug, Default)]
 pub struct ManifestWriter {
     body: Vec<u8>,
+    broken: Vec<String>,
     count: u32,
+    indexed: u32,
 }
 
 impl ManifestWriter {
@@ -236,29 +339,42 @@ impl ManifestWriter {
         self.body.extend_from_slice(&entry.mtime_ns.to_le_bytes());
         self.body.extend_from_slice(&entry.hash.to_le_bytes());
         match &entry.broken {
-            None => self.body.extend_from_slice(&NOT_BROKEN.to_le_bytes()),
+            None => {
+                self.body.extend_from_slice(&NOT_BROKEN.to_le_bytes());
+                self.indexed += 1;
+            }
             Some(message) => {
                 let message = cut(message, (NOT_BROKEN - 1) as usize);
                 self.body
                     .extend_from_slice(&(message.len() as u32).to_le_bytes());
                 self.body.extend_from_slice(message.as_bytes());
+                self.broken.push(message.to_string());
             }
         }
         self.count += 1;
     }
 
-    /// The whole file: header, notes, then the index files.
+    /// The whole file: header, summary (its length first), then the notes.
     fn render(&self, index_files: &IndexFingerprint) -> Vec<u8> {
+        let mut summary = Vec::new();
+        summary.extend_from_slice(&self.indexed.to_le_bytes());
+        summary.extend_from_slice(&(self.broken.len() as u32).to_le_bytes());
+        for message in &self.broken {
+            summary.extend_from_slice(&(message.len() as u32).to_le_bytes());
+            summary.extend_from_slice(message.as_bytes());
+        }
+        summary.extend_from_slice(&(index_files.len() as u32).to_le_bytes());
+        for (name, (size, mtime)) in index_files {
+            push_text(&mut summary, name);
+            summary.extend_from_slice(&size.to_le_bytes());
+            summary.extend_from_slice(&mtime.to_le_bytes());
+        }
         let mut out = format!("{MAGIC} {SCHEMA_VERSION}\n").into_bytes();
-        out.reserve(self.body.len() + 8 + index_files.len() * 64);
+        out.reserve(8 + summary.len() + 4 + self.body.len());
+        out.extend_from_slice(&(summary.len() as u64).to_le_bytes());
+        out.extend_from_slice(&summary);
         out.extend_from_slice(&self.count.to_le_bytes());
         out.extend_from_slice(&self.body);
-        out.extend_from_slice(&(index_files.len() as u32).to_le_bytes());
-        for (name, (size, mtime)) in index_files {
-            push_text(&mut out, name);
-            out.extend_from_slice(&size.to_le_bytes());
-            out.extend_from_slice(&mtime.to_le_bytes());
-        }
         out
     }
 
@@ -356,6 +472,10 @@ mod tests {
         let bytes = read_manifest_bytes(dir.path()).unwrap();
         let view = ManifestView::parse(&bytes).unwrap();
         assert_eq!(view.indexed(), 1);
+        let summary = ManifestSummary::read(dir.path()).unwrap();
+        assert_eq!(summary.indexed, 1);
+        assert_eq!(summary.broken, ["a b.md:3:1: unknown\tfield ✗"]);
+        assert_eq!(summary.index_files, manifest.index_files);
         assert_eq!(view.notes[1].name, "ü.md");
         assert_eq!(view.notes[0].broken, Some("a b.md:3:1: unknown\tfield ✗"));
     }
@@ -385,11 +505,42 @@ mod tests {
         let mut longer = whole.clone();
         longer.push(0);
         assert!(ManifestView::parse(&longer).is_err());
+        // The summary alone, from a file cut anywhere inside it.
+        let dir = tempfile::tempdir().unwrap();
+        let path = dir.path().join(MANIFEST_FILE);
+        let summary_end = whole.iter().position(|b| *b == b'\n').unwrap() + 1 + 8 + 12;
+        for end in 0..summary_end {
+            fs::write(&path, &whole[..end]).unwrap();
+            assert!(
+                matches!(
+                    ManifestSummary::read(dir.path()),
+                    Err(ManifestProblem::Unreadable(_))
+                ),
+                "prefix of {end} bytes"
+            );
+        }
+        fs::write(&path, &whole).unwrap();
+        assert_eq!(ManifestSummary::read(dir.path()).unwrap().indexed, 1);
+    }
+
+    #[test]
+    fn a_summary_that_disagrees_with_the_records_is_refused() {
+        let mut writer = ManifestWriter::default();
+        writer.push("a.md", &entry(None, 1));
+        writer.indexed = 2;
+        assert_eq!(
+            ManifestView::parse(&writer.render(&IndexFingerprint::new())),
+            Err(ManifestProblem::Unreadable(
+                "its summary disagrees with its records".into()
+            ))
+        );
     }
 
     #[test]
     fn a_huge_count_in_a_short_file_is_refused() {
         let mut bytes = format!("{MAGIC} {SCHEMA_VERSION}\n").into_bytes();
+        bytes.extend_from_slice(&12u64.to_le_bytes());
+        bytes.extend_from_slice(&[0; 12]);
         bytes.extend_from_slice(&u32::MAX.to_le_bytes());
         assert_eq!(
             ManifestView::parse(&bytes),

@@ -18,8 +18,8 @@ pub use content_hash::content_hash;
 pub use index_error::IndexError;
 pub use index_location::IndexLocation;
 pub use manifest::{
-    read_manifest_bytes, IndexFingerprint, Manifest, ManifestEntry, ManifestProblem, ManifestView,
-    ManifestWriter, NoteRecord, MANIFEST_FILE,
+    read_manifest_bytes, IndexFingerprint, Manifest, ManifestEntry, ManifestProblem,
+    ManifestSummary, ManifestView, ManifestWriter, NoteRecord, MANIFEST_FILE,
 };
 pub use note_index::{NoteIndex, WRITER_MEMORY_BUDGET};
 pub use note_schema::{NoteSchema, SCHEMA_VERSION};

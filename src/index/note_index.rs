@@ -21,7 +21,7 @@ use super::manifest::{
 };
 use super::{
     content_hash, register_index_analyzers, IndexError, IndexLocation, IndexResult, Manifest,
-    ManifestEntry, NoteSchema, SyncReport,
+    ManifestEntry, ManifestSummary, NoteSchema, SyncReport,
 };
 use crate::notes::{Note, NoteFile, NotesError, NotesFolder};
 use crate::watch::{ask_watcher, WatchAnswer, WatchCursor, WatchPaths};
@@ -243,18 +243,19 @@ impl NoteIndex {
         cursors: (Option<WatchCursor>, WatchCursor),
     ) -> IndexResult<(NoteIndex, SyncReport)> {
         let (stored, cursor) = cursors;
-        let bytes = read_manifest_bytes(dir);
         let mut names = changed;
-        match try_open(dir, bytes.as_deref()) {
-            Ok((index, view)) => {
-                let known: HashMap<&str, (u64, u128)> = if linked.is_empty() {
-                    HashMap::new()
-                } else {
-                    view.notes
-                        .iter()
-                        .map(|n| (n.name, (n.size, n.mtime_ns)))
-                        .collect()
-                };
+        // Linked notes are compared with their records; otherwise the
+        // manifest's summary is all that is read.
+        let opened = if linked.is_empty() {
+            try_open_summary(dir).map(|(index, summary)| (index, summary.broken))
+        } else {
+            let bytes = read_manifest_bytes(dir);
+            try_open(dir, bytes.as_deref()).map(|(index, view)| {
+                let known: HashMap<&str, (u64, u128)> = view
+                    .notes
+                    .iter()
+                    .map(|n| (n.name, (n.size, n.mtime_ns)))
+                    .collect();
                 names.extend(
                     linked
                         .iter()
@@ -264,17 +265,22 @@ impl NoteIndex {
                         })
                         .cloned(),
                 );
-                if names.is_empty() {
-                    let report = SyncReport {
-                        broken: broken_of(&folder, view.notes.iter().filter_map(|n| n.broken)),
-                        ..SyncReport::default()
-                    };
-                    if stored != Some(cursor) {
-                        save_cursor(dir, Some(cursor));
-                    }
-                    return Ok((index.into_note_index(folder, dir)?, report));
+                let broken = view.notes.iter().filter_map(|n| n.broken);
+                (index, broken.map(str::to_string).collect())
+            })
+        };
+        match opened {
+            Ok((index, broken)) if names.is_empty() => {
+                let report = SyncReport {
+                    broken: broken_of(&folder, broken.iter().map(String::as_str)),
+                    ..SyncReport::default()
+                };
+                if stored != Some(cursor) {
+                    save_cursor(dir, Some(cursor));
                 }
+                return Ok((index.into_note_index(folder, dir)?, report));
             }
+            Ok(_) => {}
             // Rebuilt below under the lock, unless another process has
             // just done so: then every name given needs a look.
             Err(_) => names.extend(linked.iter().cloned()),
@@ -551,6 +557,29 @@ fn try_open<'b>(
         return Err("there was no index yet".into());
     }
     let manifest = ManifestView::parse(bytes.map_err(describe)?).map_err(|p| describe(&p))?;
+    let index = open_checked(dir, &manifest.index_files, manifest.indexed())?;
+    Ok((index, manifest))
+}
+
+/// The same as [`try_open`] from the manifest's summary alone, for a search
+/// that needs no note's record.
+fn try_open_summary(dir: &Path) -> Result<(OpenedIndex, ManifestSummary), String> {
+    if !dir.join("meta.json").exists() {
+        return Err("there was no index yet".into());
+    }
+    let summary = ManifestSummary::read(dir).map_err(|p| describe(&p))?;
+    let index = open_checked(dir, &summary.index_files, summary.indexed)?;
+    Ok((index, summary))
+}
+
+/// Open the index in `dir`, check its schema, its files against the
+/// manifest's `index_files` (checksums only when they differ) and its
+/// number of notes against `indexed`.
+fn open_checked(
+    dir: &Path,
+    index_files: &IndexFingerprint,
+    indexed: usize,
+) -> Result<OpenedIndex, String> {
     let index = Index::open_in_dir(dir).map_err(|e| format!("it could not be opened ({e})"))?;
     if index.schema() != NoteSchema::new().schema {
         return Err("its schema differs".into());
@@ -559,7 +588,7 @@ fn try_open<'b>(
     // Files damaged in place are not noticed by opening or searching; their
     // checksums are read (the whole index) only when the index files are not
     // as the last write left them.
-    if index_fingerprint(dir).ok().as_ref() != Some(&manifest.index_files) {
+    if index_fingerprint(dir).ok().as_ref() != Some(index_files) {
         let damaged = index
             .validate_checksum()
             .map_err(|e| format!("it could not be checked ({e})"))?;
@@ -568,14 +597,13 @@ fn try_open<'b>(
         }
     }
     let reader = manual_reader(&index).map_err(|e| format!("it could not be read ({e})"))?;
-    let indexed = manifest.indexed() as u64;
     let found = reader.searcher().num_docs();
-    if found != indexed {
+    if found != indexed as u64 {
         return Err(format!(
             "it held {found} notes where its manifest lists {indexed}"
         ));
     }
-    Ok((OpenedIndex { index, reader }, manifest))
+    Ok(OpenedIndex { index, reader })
 }
 
 /// The merge policy of every writer: segments of up to `MERGE_MAX_DOCS`
