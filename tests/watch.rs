@@ -319,3 +319,28 @@ fn a_stranger_on_the_socket_is_not_believed() {
     status(&workspace.run(&["search", "silt"]), 0);
     server.join().unwrap();
 }
+
+#[test]
+fn a_broken_note_is_still_reported_on_each_search_while_watched() {
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    workspace.write("2026-02-01-broken.md", "---\ndate: 2026-02-01\nmachine: [\n---\n");
+    let mut watcher = Watcher::spawn(&workspace);
+    // The watcher brings the index up to date first, and says so too.
+    assert!(watcher.line().ends_with("(note skipped)"));
+    assert!(watcher.line().starts_with("watching 3 notes in "));
+    watcher.line();
+    for _ in 0..2 {
+        let output = workspace.run(&["search", "silt"]);
+        status(&output, 0);
+        let warnings = stderr(&output);
+        assert!(
+            warnings.starts_with(&format!(
+                "warning: {}:",
+                workspace.notes().join("2026-02-01-broken.md").display()
+            )) && warnings.ends_with("(note skipped)\n")
+                && warnings.lines().count() == 1,
+            "{warnings}"
+        );
+    }
+}
