@@ -324,7 +324,10 @@ fn a_stranger_on_the_socket_is_not_believed() {
 fn a_broken_note_is_still_reported_on_each_search_while_watched() {
     let workspace = Workspace::new();
     two_notes(&workspace);
-    workspace.write("2026-02-01-broken.md", "---\ndate: 2026-02-01\nmachine: [\n---\n");
+    workspace.write(
+        "2026-02-01-broken.md",
+        "---\ndate: 2026-02-01\nmachine: [\n---\n",
+    );
     let mut watcher = Watcher::spawn(&workspace);
     // The watcher brings the index up to date first, and says so too.
     assert!(watcher.line().ends_with("(note skipped)"));
