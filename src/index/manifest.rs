@@ -523,6 +523,20 @@ mod tests {
         assert_eq!(ManifestSummary::read(dir.path()).unwrap().indexed, 1);
     }
 
+    proptest::proptest! {
+        #[test]
+        fn any_bytes_after_a_good_header_are_read_or_refused_without_a_panic(
+            tail in proptest::collection::vec(proptest::num::u8::ANY, 0..512)
+        ) {
+            let mut bytes = format!("{MAGIC} {SCHEMA_VERSION}\n").into_bytes();
+            bytes.extend_from_slice(&tail);
+            let _ = ManifestView::parse(&bytes);
+            let dir = tempfile::tempdir().unwrap();
+            fs::write(dir.path().join(MANIFEST_FILE), &bytes).unwrap();
+            let _ = ManifestSummary::read(dir.path());
+        }
+    }
+
     #[test]
     fn a_summary_that_disagrees_with_the_records_is_refused() {
         let mut writer = ManifestWriter::default();
