@@ -5,7 +5,8 @@
 //! and through the real binary, the same queries answered by `grep -ril`, the
 //! cost of updating one note, and peak memory of a full build.
 //!
-//! `SPOOLSLEUTH_BENCH_SIZES=10000,100000` (the default) picks the note counts.
+//! `SPOOLSLEUTH_BENCH_SIZES=10000,100000` (the default) picks the note counts;
+//! `SPOOLSLEUTH_BENCH_DIR=DIR` keeps the generated notes and indexes there.
 
 use std::fs;
 use std::path::{Path, PathBuf};
@@ -18,6 +19,7 @@ use spoolsleuth::index::{
 };
 use spoolsleuth::notes::{NotesFolder, CAUSE_IDS, SYMPTOM_IDS};
 use spoolsleuth::search::{search, QueryBuilder, SearchRequest};
+use spoolsleuth::watch::{ask_watcher, WatchCursor};
 use tantivy::collector::{Count, TopDocs};
 use tantivy::{Index, ReloadPolicy};
 
@@ -260,6 +262,8 @@ fn run(count: usize, root: &Path, binary: &Path) {
         build.as_secs_f64() / update.as_secs_f64()
     );
 
+    watched(binary, &notes, &index_dir, &queries, grep_p50, build);
+
     let fresh = root.join(format!("index-{count}-cli"));
     if let Some(kb) = peak_memory_of_build(binary, &notes, &fresh) {
         println!(
@@ -282,6 +286,140 @@ fn run(count: usize, root: &Path, binary: &Path) {
         text / 1_000_000,
         size / 1_000_000
     );
+}
+
+/// The same searches and one-note updates with `cases watch` running, so
+/// that searches ask the watcher instead of checking every note file.
+fn watched(
+    binary: &Path,
+    notes: &Path,
+    index_dir: &Path,
+    queries: &[String],
+    grep_p50: Duration,
+    build: Duration,
+) {
+    use std::io::{BufRead, BufReader};
+
+    let started = Instant::now();
+    let mut watcher = Command::new(binary)
+        .args(["cases", "--cases"])
+        .arg(notes)
+        .arg("--index-dir")
+        .arg(index_dir)
+        .arg("watch")
+        .stderr(std::process::Stdio::piped())
+        .spawn()
+        .unwrap();
+    let mut lines = BufReader::new(watcher.stderr.take().unwrap()).lines();
+    loop {
+        let line = lines.next().unwrap().unwrap();
+        if line.starts_with("searches of these notes ask this watcher") {
+            break;
+        }
+    }
+    println!(
+        "| watcher start (index check, watch, its first sync) | {} | |",
+        ms(started.elapsed())
+    );
+
+    let folder = NotesFolder::Disk(notes.to_path_buf());
+    let location = IndexLocation::Dir(index_dir.to_path_buf());
+    let ask = p50_of(50, || {
+        let reply = ask_watcher(notes, index_dir, WatchCursor::load(index_dir));
+        assert!(reply.is_some());
+    });
+    println!(
+        "| breakdown with watcher: ask the watcher (connect, marker, answer) | {} | p50 |",
+        ms(ask)
+    );
+    let open = p50_of(20, || {
+        NoteIndex::open(folder.clone(), &location).unwrap();
+    });
+    println!(
+        "| breakdown with watcher: whole open with freshness check | {} | p50 |",
+        ms(open)
+    );
+
+    let mut cli = Vec::new();
+    for query in queries {
+        for _ in 0..3 {
+            let started = Instant::now();
+            let status = Command::new(binary)
+                .args(["cases", "search", query, "--cases"])
+                .arg(notes)
+                .arg("--index-dir")
+                .arg(index_dir)
+                .stdout(std::process::Stdio::null())
+                .status()
+                .unwrap();
+            cli.push(started.elapsed());
+            assert!(status.success());
+        }
+    }
+    let cli_p50 = percentile(&mut cli, 0.5);
+    println!(
+        "| query via CLI binary with watcher (warm), p50 / p95 | {} / {} | {:.0}x faster than grep |",
+        ms(cli_p50),
+        ms(percentile(&mut cli, 0.95)),
+        grep_p50.as_secs_f64() / cli_p50.as_secs_f64()
+    );
+
+    let count = fs::read_dir(notes).unwrap().count();
+    let mut updates = Vec::new();
+    let mut searches = Vec::new();
+    for i in 0..5 {
+        let path = notes.join(format!("note-{:06}.md", (i * 7919 + 13) % count));
+        let mut text = fs::read_to_string(&path).unwrap();
+        text.push_str(&format!("\nEdited with the watcher, pass {i}.\n"));
+        fs::write(&path, text).unwrap();
+        let started = Instant::now();
+        let (_, report) = NoteIndex::open(folder.clone(), &location).unwrap();
+        updates.push(started.elapsed());
+        assert_eq!(report.updated, 1);
+        // And the same through the binary: an edit, then a search.
+        let path = notes.join(format!("note-{:06}.md", (i * 7919 + 29) % count));
+        let mut text = fs::read_to_string(&path).unwrap();
+        text.push_str(&format!("\nEdited before a search, pass {i}.\n"));
+        fs::write(&path, text).unwrap();
+        let started = Instant::now();
+        let status = Command::new(binary)
+            .args(["cases", "search", &queries[0], "--cases"])
+            .arg(notes)
+            .arg("--index-dir")
+            .arg(index_dir)
+            .stdout(std::process::Stdio::null())
+            .status()
+            .unwrap();
+        searches.push(started.elapsed());
+        assert!(status.success());
+    }
+    let update = percentile(&mut updates, 0.5);
+    println!(
+        "| update one note with watcher (open + sync), p50 | {} | {:.0}x cheaper than the full build |",
+        ms(update),
+        build.as_secs_f64() / update.as_secs_f64()
+    );
+    println!(
+        "| CLI search just after a one-note edit, with watcher, p50 | {} | |",
+        ms(percentile(&mut searches, 0.5))
+    );
+    let status = fs::read_to_string(format!("/proc/{}/status", watcher.id())).unwrap_or_default();
+    if let Some(hwm) = status.lines().find(|l| l.starts_with("VmHWM:")) {
+        println!(
+            "| watcher peak RSS | {} MB | |",
+            hwm.split_whitespace()
+                .nth(1)
+                .and_then(|kb| kb.parse::<u64>().ok())
+                .unwrap_or(0)
+                / 1024
+        );
+    }
+    Command::new("kill")
+        .arg("-TERM")
+        .arg(watcher.id().to_string())
+        .status()
+        .unwrap();
+    assert!(watcher.wait().unwrap().success());
 }
 
 /// p50 of `runs` timings of `job`.
@@ -399,8 +537,18 @@ fn main() {
         .filter_map(|s| s.trim().parse().ok())
         .collect();
     let binary = PathBuf::from(env!("CARGO_BIN_EXE_spoolsleuth"));
-    let root = tempfile::tempdir().unwrap();
+    // `SPOOLSLEUTH_BENCH_DIR=DIR` keeps the notes and indexes in DIR for
+    // profiling afterwards; by default they go to a temporary folder.
+    let temporary = tempfile::tempdir().unwrap();
+    let root = std::env::var_os("SPOOLSLEUTH_BENCH_DIR")
+        .map_or_else(|| temporary.path().to_path_buf(), PathBuf::from);
+    fs::create_dir_all(&root).unwrap();
+    assert!(
+        fs::read_dir(&root).unwrap().next().is_none(),
+        "{}: the benchmark needs an empty folder",
+        root.display()
+    );
     for count in sizes {
-        run(count, root.path(), &binary);
+        run(count, &root, &binary);
     }
 }
