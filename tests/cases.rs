@@ -128,6 +128,21 @@ pub(crate) fn two_notes(workspace: &Workspace) {
     );
 }
 
+/// A third note, added after the first two were indexed.
+pub(crate) fn add_sorter_note(workspace: &Workspace) {
+    workspace.write(
+        "2026-01-05-sorter-9-warm.md",
+        &note(
+            "sorter-9",
+            "2026-01-05",
+            "Sorter speeds up warm",
+            "drift-warm",
+            "needle-valve-uncompensated",
+            "Needle valve again.",
+        ),
+    );
+}
+
 #[test]
 fn demo_notes_answer_the_trade_questions_in_the_top_three() {
     let dir = tempfile::tempdir().unwrap();
@@ -331,17 +346,7 @@ fn added_edited_and_deleted_notes_are_picked_up() {
     let workspace = Workspace::new();
     two_notes(&workspace);
     status(&workspace.run(&["search", "silt"]), 0);
-    workspace.write(
-        "2026-01-05-sorter-9-warm.md",
-        &note(
-            "sorter-9",
-            "2026-01-05",
-            "Sorter speeds up warm",
-            "drift-warm",
-            "needle-valve-uncompensated",
-            "Needle valve again.",
-        ),
-    );
+    add_sorter_note(&workspace);
     assert_eq!(
         ids(&workspace.run(&["search", "needle", "--json"])),
         ["2026-01-05-sorter-9-warm"]

@@ -11,7 +11,7 @@ use std::process::{Child, ChildStderr, Stdio};
 use std::sync::mpsc;
 use std::time::Duration;
 
-use crate::cases::{ids, note, status, stderr, two_notes, Workspace};
+use crate::cases::{add_sorter_note, ids, status, stderr, two_notes, Workspace};
 
 /// How long a watcher may take to index the notes and start.
 const START_LIMIT: Duration = Duration::from_secs(60);
@@ -156,17 +156,7 @@ fn added_renamed_and_deleted_notes_are_picked_up_while_watched() {
     let workspace = Workspace::new();
     two_notes(&workspace);
     let _watcher = Watcher::start(&workspace);
-    workspace.write(
-        "2026-01-05-sorter-9-warm.md",
-        &note(
-            "sorter-9",
-            "2026-01-05",
-            "Sorter speeds up warm",
-            "drift-warm",
-            "needle-valve-uncompensated",
-            "Needle valve again.",
-        ),
-    );
+    add_sorter_note(&workspace);
     assert_eq!(
         ids(&workspace.run(&["search", "needle", "--json"])),
         ["2026-01-05-sorter-9-warm"]
