@@ -212,22 +212,7 @@ impl NoteIndex {
                 return Ok((index.into_note_index(folder, dir)?, report));
             }
         }
-        let _lock = lock(dir)?;
-        // Re-check under the lock: another process may have done the work.
-        let bytes = read_manifest_bytes(dir);
-        let reopened =
-            try_open(dir, bytes.as_deref()).map(|(index, view)| (index, view.to_manifest()));
-        let opened = match reopened {
-            Ok((index, manifest)) => {
-                let change = changes(&manifest, &files);
-                index
-                    .into_note_index(folder, dir)?
-                    .apply_changes(manifest, change)
-            }
-            Err(reason) => Self::rebuild(folder, dir, reason),
-        }?;
-        save_cursor(dir, cursor);
-        Ok(opened)
+        Self::update(folder, dir, cursor, |manifest| changes(manifest, &files))
     }
 
     /// Bring the index up to date from a watcher's answer: read the notes
@@ -285,22 +270,35 @@ impl NoteIndex {
             // just done so: then every name given needs a look.
             Err(_) => names.extend(linked.iter().cloned()),
         }
+        let changed_names = |manifest: &Manifest| changes_of_names(&folder, manifest, names);
+        Self::update(folder.clone(), dir, Some(cursor), changed_names)
+    }
+
+    /// Under our lock, apply the changes `change_of` finds against the
+    /// manifest (re-read: another process may have done the work), or
+    /// rebuild when the index cannot be used; then save the watcher's
+    /// `cursor`, which still holds after a rebuild as it was taken before
+    /// the folder was listed.
+    fn update(
+        folder: NotesFolder,
+        dir: &Path,
+        cursor: Option<WatchCursor>,
+        change_of: impl FnOnce(&Manifest) -> Changes,
+    ) -> IndexResult<(NoteIndex, SyncReport)> {
         let _lock = lock(dir)?;
         let bytes = read_manifest_bytes(dir);
         let reopened =
             try_open(dir, bytes.as_deref()).map(|(index, view)| (index, view.to_manifest()));
         let opened = match reopened {
             Ok((index, manifest)) => {
-                let change = changes_of_names(&folder, &manifest, names);
+                let change = change_of(&manifest);
                 index
                     .into_note_index(folder, dir)?
                     .apply_changes(manifest, change)
             }
-            // The whole folder is listed for a rebuild; the cursor still
-            // holds, as it was taken before the listing.
             Err(reason) => Self::rebuild(folder, dir, reason),
         }?;
-        save_cursor(dir, Some(cursor));
+        save_cursor(dir, cursor);
         Ok(opened)
     }
 
