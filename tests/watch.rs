@@ -86,10 +86,15 @@ impl Watcher {
         self.finish()
     }
 
-    /// Wait for the watcher to end on its own.
+    /// Wait for the watcher to end on its own, and for the last of what it
+    /// printed (the reader thread ends at the end of its stderr).
     fn finish(mut self) -> (Option<i32>, Vec<String>) {
         let code = self.child.wait().expect("wait for the watcher").code();
-        (code, self.lines.try_iter().collect())
+        let mut rest = Vec::new();
+        while let Ok(line) = self.lines.recv_timeout(START_LIMIT) {
+            rest.push(line);
+        }
+        (code, rest)
     }
 }
 
