@@ -271,6 +271,27 @@ fn a_removed_notes_folder_stops_the_watcher_with_an_error() {
 }
 
 #[test]
+fn a_notes_folder_removed_while_still_held_open_stops_the_watcher() {
+    // A process working in the folder keeps it alive after its removal, so
+    // the kernel does not report the removal; the watcher still notices.
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    let watcher = Watcher::start(&workspace);
+    let mut holder = std::process::Command::new("sleep")
+        .arg("60")
+        .current_dir(workspace.notes())
+        .spawn()
+        .expect("start sleep");
+    fs::remove_dir_all(workspace.notes()).unwrap();
+    let (code, lines) = watcher.finish();
+    holder.kill().unwrap();
+    holder.wait().unwrap();
+    assert_eq!(code, Some(2));
+    assert_eq!(lines.len(), 1);
+    assert!(lines[0].ends_with("the notes folder was removed or renamed; stopped watching (searches look at every note again)"));
+}
+
+#[test]
 fn the_built_in_notes_cannot_be_watched() {
     let dir = tempfile::tempdir().unwrap();
     let output = crate::harness::spoolsleuth(dir.path())
@@ -341,4 +362,45 @@ fn a_broken_note_is_still_reported_on_each_search_while_watched() {
             "{warnings}"
         );
     }
+}
+
+#[test]
+fn a_removed_index_folder_stops_the_watcher_with_an_error() {
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    let watcher = Watcher::start(&workspace);
+    fs::remove_dir_all(workspace.index()).unwrap();
+    let (code, lines) = watcher.finish();
+    assert_eq!(code, Some(2));
+    assert_eq!(
+        lines,
+        [format!(
+            "error: {}: the watcher's socket is gone (removed, or its index folder was); stopped watching (searches look at every note again)",
+            workspace.index().join("watch/socket").display()
+        )]
+    );
+    // The next search builds a new index from the notes.
+    status(&workspace.run(&["search", "silt"]), 0);
+}
+
+#[test]
+fn a_stopped_watcher_does_not_stop_searches_from_seeing_changes() {
+    let workspace = Workspace::new();
+    two_notes(&workspace);
+    let watcher = Watcher::start(&workspace);
+    let signal = |name: &str| {
+        let sent = std::process::Command::new("kill")
+            .arg(format!("-{name}"))
+            .arg(watcher.child.id().to_string())
+            .status()
+            .expect("run kill");
+        assert!(sent.success());
+    };
+    signal("STOP");
+    fs::remove_file(workspace.notes().join("2025-06-01-conveyor-7-hot.md")).unwrap();
+    // Nobody answers: the search gives up waiting and checks every note.
+    status(&workspace.run(&["search", "sawdust"]), 1);
+    signal("CONT");
+    status(&workspace.run(&["search", "silt"]), 0);
+    assert_eq!(watcher.terminate().0, Some(0));
 }

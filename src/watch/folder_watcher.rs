@@ -94,8 +94,8 @@ mod linux {
     const STOP_CHECK: Duration = Duration::from_millis(250);
     /// How long a search may take to ask, and the watcher to read up to its
     /// marker, before the exchange is dropped (the search then looks at
-    /// every note).
-    const EXCHANGE_TIMEOUT: Duration = Duration::from_secs(2);
+    /// every note). An answer takes well under a millisecond.
+    const EXCHANGE_TIMEOUT: Duration = Duration::from_millis(500);
     /// The longest request read.
     const MAX_REQUEST_BYTES: u64 = 64 * 1024;
     /// Room for a few hundred events per read.
@@ -116,6 +116,15 @@ mod linux {
         (0x0116_1970, "GFS2"),
     ];
 
+    /// Which watched folder went away.
+    #[derive(Clone, Copy, Debug)]
+    enum Gone {
+        /// The notes folder.
+        Notes,
+        /// The watch folder inside the index folder.
+        WatchFolder,
+    }
+
     /// One kernel event, copied out of the read buffer.
     struct Event {
         flags: ReadFlags,
@@ -126,7 +135,8 @@ mod linux {
     pub(super) struct Watcher {
         buffer: Vec<MaybeUninit<u8>>,
         folder: FolderIdentity,
-        gone: bool,
+        /// Set when a watched folder went away.
+        gone: Option<Gone>,
         inotify: OwnedFd,
         listener: UnixListener,
         _lock: File,
@@ -137,6 +147,8 @@ mod linux {
         notes_wd: i32,
         paths: WatchPaths,
         seen_marker: Option<u64>,
+        /// The socket file as bound, to notice it removed or replaced.
+        socket_inode: u64,
     }
 
     impl Watcher {
@@ -187,10 +199,13 @@ mod linux {
             listener
                 .set_nonblocking(true)
                 .map_err(|e| WatchError::io(&paths.socket, e))?;
+            let socket_inode = fs::symlink_metadata(&paths.socket)
+                .map_err(|e| WatchError::io(&paths.socket, e))?
+                .ino();
             let mut watcher = Watcher {
                 buffer: vec![MaybeUninit::uninit(); EVENT_BUFFER_BYTES],
                 folder,
-                gone: false,
+                gone: None,
                 inotify,
                 listener,
                 _lock: lock,
@@ -201,6 +216,7 @@ mod linux {
                 notes_wd,
                 paths,
                 seen_marker: None,
+                socket_inode,
             };
             // Listed after the watch began, so a link made meanwhile is
             // seen either here or as an event.
@@ -225,11 +241,8 @@ mod linux {
                     Err(e) => return Err(WatchError::io(&self.notes_dir, e.into())),
                 }
                 self.drain()?;
-                if self.gone {
-                    return Err(WatchError::FolderGone {
-                        path: self.notes_dir.clone(),
-                    });
-                }
+                self.look_for_removal();
+                self.stop_if_gone()?;
                 loop {
                     match self.listener.accept() {
                         // A search that hangs up or garbles its question
@@ -241,14 +254,40 @@ mod linux {
                         Err(e) if e.kind() == ErrorKind::Interrupted => {}
                         Err(e) => return Err(WatchError::io(&self.paths.socket, e)),
                     }
-                    if self.gone {
-                        return Err(WatchError::FolderGone {
-                            path: self.notes_dir.clone(),
-                        });
-                    }
+                    self.stop_if_gone()?;
                 }
             }
             Ok(())
+        }
+
+        /// Notice a notes folder or socket removed while something still
+        /// holds it open. The kernel reports a folder's removal only once
+        /// nothing refers to it: a shell whose working folder it is keeps
+        /// the notes folder, and the bound socket and the held lock keep
+        /// the watch folder, so their paths are looked at on every tick.
+        fn look_for_removal(&mut self) {
+            if FolderIdentity::of(&self.notes_dir).ok() != Some(self.folder) {
+                self.gone = Some(Gone::Notes);
+            } else if fs::symlink_metadata(&self.paths.socket)
+                .map(|m| m.ino())
+                .ok()
+                != Some(self.socket_inode)
+            {
+                self.gone = Some(Gone::WatchFolder);
+            }
+        }
+
+        /// The error to stop with when a watched folder went away.
+        fn stop_if_gone(&self) -> WatchResult<()> {
+            match self.gone {
+                None => Ok(()),
+                Some(Gone::Notes) => Err(WatchError::FolderGone {
+                    path: self.notes_dir.clone(),
+                }),
+                Some(Gone::WatchFolder) => Err(WatchError::IndexGone {
+                    path: self.paths.socket.clone(),
+                }),
+            }
         }
 
         /// Answer one search: read its cursor, read every event up to a
@@ -300,7 +339,7 @@ mod linux {
             let wait = timespec(EXCHANGE_TIMEOUT);
             loop {
                 self.drain()?;
-                if self.gone {
+                if self.gone.is_some() {
                     return Ok(false);
                 }
                 if self.seen_marker.is_some_and(|seen| seen >= number) {
@@ -361,7 +400,7 @@ mod linux {
                     .flags
                     .intersects(ReadFlags::IGNORED | ReadFlags::UNMOUNT)
                 {
-                    self.gone = true;
+                    self.gone = Some(Gone::WatchFolder);
                 }
                 return Ok(());
             }
@@ -374,7 +413,7 @@ mod linux {
                     | ReadFlags::IGNORED
                     | ReadFlags::UNMOUNT,
             ) {
-                self.gone = true;
+                self.gone = Some(Gone::Notes);
                 return Ok(());
             }
             if let Some(name) = event.name.filter(|n| is_note_file_name(n)) {

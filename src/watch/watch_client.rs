@@ -6,9 +6,11 @@ use std::path::Path;
 
 use super::{FolderIdentity, SyncReply, WatchCursor};
 
-/// How long a search waits for the watcher before looking at every note.
+/// How long a search waits for the watcher before looking at every note
+/// itself (an answer takes well under a millisecond; a stopped or swamped
+/// watcher must not hold searches up for long).
 #[cfg(unix)]
-const ANSWER_TIMEOUT: std::time::Duration = std::time::Duration::from_secs(2);
+const ANSWER_TIMEOUT: std::time::Duration = std::time::Duration::from_millis(500);
 /// The longest answer read (a list of at most 20 000 names and the links).
 #[cfg(unix)]
 const MAX_REPLY_BYTES: u64 = 64 * 1024 * 1024;

@@ -23,6 +23,12 @@ pub enum WatchError {
         /// The notes folder.
         path: PathBuf,
     },
+    /// The index folder, or the watcher's socket in it, was removed.
+    #[error("{path}: the watcher's socket is gone (removed, or its index folder was); stopped watching (searches look at every note again)")]
+    IndexGone {
+        /// The socket.
+        path: PathBuf,
+    },
     /// Reading or writing a file, the socket or the kernel's watch failed.
     #[error("{path}: {source}")]
     Io {
