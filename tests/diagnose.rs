@@ -207,8 +207,9 @@ fn a_healthy_valve_that_eases_three_percent_under_load_is_not_blamed() {
             "cylinder-seal-bypass",
             "sag-cylinder-slower-than-its-flow"
         ),
-        "19.42 L/min goes into the cap end but the rod speed of 41 mm/s accounts for only \
-         19.32 L/min; the valve's own flow fell by just 2.904 %"
+        "19.42 L/min goes into the cap end and the rod speed of 41 mm/s accounts for \
+         19.32 L/min, with the valve's own flow down 2.904 % (band 5 %): not the sign of a \
+         piston seal bypassing while the valve holds its flow"
     );
 }
 
@@ -313,8 +314,9 @@ fn a_conveyor_within_three_percent_across_the_throttle_is_not_blamed() {
             "compensator-sticking",
             "swing-flow-follows-supply-with-headroom"
         ),
-        "flow goes from 30 L/min at low supply to 30.89 L/min at high supply (2.963 %, band 5 %) \
-         although even the low supply stands 20 bar over the load"
+        "flow goes from 30 L/min at low supply to 30.89 L/min at high supply (2.963 %, band 5 %), \
+         with 20 bar of headroom at low supply: not a flow that follows supply while the valve \
+         has pressure to regulate"
     );
 }
 

@@ -156,6 +156,7 @@ struct RuleView {
     when_true: &'static str,
     when_false: &'static str,
     evidence: String,
+    evidence_false: Option<String>,
     prior: f64,
     source: String,
     fix: String,
@@ -206,6 +207,7 @@ fn view(base: &RuleBase, rule: &RuleDef, context: &Context) -> RuleView {
         when_true: e.when_true.name(),
         when_false: e.when_false.name(),
         evidence: e.evidence.clone(),
+        evidence_false: e.evidence_false.clone(),
         prior: e.prior,
         source: e.source.clone().unwrap_or_default(),
         fix: cause.map(|c| c.entry.fix.clone()).unwrap_or_default(),
@@ -285,6 +287,9 @@ fn show(context: &Context, id: &str, json: bool) -> Result<ExitStatus, Error> {
         ));
     }
     out.push_str(&format!("Evidence: {}\n", v.evidence));
+    if let Some(sentence) = &v.evidence_false {
+        out.push_str(&format!("Evidence when false: {sentence}\n"));
+    }
     out.push_str(&format!("Prior likelihood: {}\n", v.prior));
     out.push_str(&format!("Source: {}\n", v.source));
     out.push_str(&format!("Fix: {}\n", v.fix));

@@ -143,9 +143,13 @@ fn assess(
                     Effect::RulesOut => ruled_out = true,
                 }
                 let label = if *holds { "true" } else { "false" };
-                let text = rule
-                    .evidence
-                    .try_render(values, units)
+                let sentence = if *holds {
+                    Some(&rule.evidence)
+                } else {
+                    rule.evidence_false.as_ref()
+                };
+                let text = sentence
+                    .and_then(|s| s.try_render(values, units))
                     .unwrap_or_else(|| settled_by(base, rule, values, units));
                 (label, Some(effect), text)
             }
@@ -227,8 +231,10 @@ fn history_words(base: &RuleBase, cause: &str, history: &[CauseHistory]) -> Opti
     ))
 }
 
-/// When a check was settled by part of its readings and its sentence needs
-/// the rest: the values it was decided on, and the check itself.
+/// When a check has no sentence for its outcome (one that does not hold,
+/// with no `evidence_false`), or was settled by part of its readings and
+/// its sentence needs the rest: the values it was decided on, and the check
+/// itself.
 fn settled_by(base: &RuleBase, rule: &RuleDef, values: &Values, units: UnitSystem) -> String {
     let known: Vec<String> = rule
         .check

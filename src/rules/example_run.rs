@@ -83,10 +83,13 @@ impl RuleBase {
         };
         result.got = Some(got);
         result.passed = got == example.expect;
-        result.detail = if got == Expectation::Missing {
-            detail
-        } else {
-            rule.evidence.render(&values, UnitSystem::Metric)
+        result.detail = match got {
+            Expectation::Missing => detail,
+            Expectation::False => match &rule.evidence_false {
+                Some(sentence) => sentence.render(&values, UnitSystem::Metric),
+                None => "does not hold".to_string(),
+            },
+            Expectation::True => rule.evidence.render(&values, UnitSystem::Metric),
         };
         result
     }

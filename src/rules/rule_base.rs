@@ -124,8 +124,10 @@ pub struct RuleDef {
     pub entry: RuleEntry,
     /// The compiled check (a true/false formula).
     pub check: Check,
-    /// The compiled evidence sentence.
+    /// The compiled evidence sentence (for a check that holds).
     pub evidence: Evidence,
+    /// The compiled sentence for a check that does not hold, if written.
+    pub evidence_false: Option<Evidence>,
     /// The actuator its readings belong to, if only one kind has them.
     pub actuator: Option<Actuator>,
     /// Where it came from.
@@ -582,6 +584,18 @@ impl RuleBase {
                 None
             }
         };
+        let evidence_false = match entry
+            .evidence_false
+            .as_deref()
+            .map(|t| (t, Evidence::compile(t, &env)))
+        {
+            None => None,
+            Some((_, Ok(e))) => Some(e),
+            Some((text, Err((offset, message)))) => {
+                errors.push(self.formula_error(&origin, "evidence_false", text, offset, &message));
+                None
+            }
+        };
         match (check, evidence) {
             (Some(check), Some(evidence)) if errors.is_empty() => {
                 let actuator = self.actuator_of(&check.inputs());
@@ -589,6 +603,7 @@ impl RuleBase {
                     entry,
                     check,
                     evidence,
+                    evidence_false,
                     actuator,
                     origin,
                 })

@@ -341,8 +341,14 @@ pub struct RuleEntry {
     /// Circuit types it applies to (empty: all).
     #[serde(default)]
     pub circuits: Vec<Circuit>,
-    /// Evidence sentence with `{formula}` placeholders.
+    /// Evidence sentence with `{formula}` placeholders, said when the check
+    /// holds.
     pub evidence: String,
+    /// The sentence said when the check does not hold; without it the
+    /// values the check was decided on are shown instead, so a sentence
+    /// written for the holding case is never shown as if it were true.
+    #[serde(default)]
+    pub evidence_false: Option<String>,
     /// Worked examples (at least two).
     #[serde(default)]
     pub examples: Vec<ExampleEntry>,
