@@ -277,7 +277,8 @@ fn show(context: &Context, id: &str, json: bool) -> Result<ExitStatus, Error> {
     out.push_str(&format!("Check: {}\n", v.check));
     out.push_str(&format!(
         "  if true, it {} the cause; if false, it {} it\n",
-        v.when_true, v.when_false
+        v.when_true.replace('-', " "),
+        v.when_false.replace('-', " ")
     ));
     out.push_str(&format!("Readings it needs: {}\n", v.inputs.join(", ")));
     for t in &v.thresholds {
