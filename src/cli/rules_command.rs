@@ -276,9 +276,9 @@ fn show(context: &Context, id: &str, json: bool) -> Result<ExitStatus, Error> {
     ));
     out.push_str(&format!("Check: {}\n", v.check));
     out.push_str(&format!(
-        "  if true, it {} the cause; if false, it {} it\n",
-        v.when_true.replace('-', " "),
-        v.when_false.replace('-', " ")
+        "  if true, it {}; if false, it {}\n",
+        effect_on(v.when_true, "the cause"),
+        effect_on(v.when_false, "it")
     ));
     out.push_str(&format!("Readings it needs: {}\n", v.inputs.join(", ")));
     for t in &v.thresholds {
@@ -340,4 +340,12 @@ fn functions(json: bool) -> Result<ExitStatus, Error> {
     }
     output::print(&t.to_string())?;
     Ok(ExitStatus::Success)
+}
+
+/// An effect's name as words acting on `object`: "weakens it", "rules it out".
+fn effect_on(effect: &str, object: &str) -> String {
+    match effect.strip_suffix("-out") {
+        Some(verb) => format!("{verb} {object} out"),
+        None => format!("{effect} {object}"),
+    }
 }
