@@ -449,8 +449,14 @@ mod linux {
 
     impl Drop for Watcher {
         fn drop(&mut self) {
-            // Searches that find no socket look at every note.
-            let _ = fs::remove_file(&self.paths.socket);
+            // Searches that find no socket look at every note. Only our own
+            // socket goes: after the index folder was removed, a new
+            // watcher's may stand at the same path.
+            let ours = fs::symlink_metadata(&self.paths.socket)
+                .is_ok_and(|m| m.ino() == self.socket_inode);
+            if ours {
+                let _ = fs::remove_file(&self.paths.socket);
+            }
         }
     }
 
