@@ -77,13 +77,18 @@ impl Watcher {
     /// Send SIGTERM and return the exit code and the lines printed after
     /// the start.
     fn terminate(self) -> (Option<i32>, Vec<String>) {
-        let killed = std::process::Command::new("kill")
-            .arg("-TERM")
+        self.signal("TERM");
+        self.finish()
+    }
+
+    /// Send the signal `name` (`TERM`, `STOP`, `CONT`) to the watcher.
+    fn signal(&self, name: &str) {
+        let sent = std::process::Command::new("kill")
+            .arg(format!("-{name}"))
             .arg(self.child.id().to_string())
             .status()
             .expect("run kill");
-        assert!(killed.success());
-        self.finish()
+        assert!(sent.success());
     }
 
     /// Wait for the watcher to end on its own, and for the last of what it
@@ -388,19 +393,11 @@ fn a_stopped_watcher_does_not_stop_searches_from_seeing_changes() {
     let workspace = Workspace::new();
     two_notes(&workspace);
     let watcher = Watcher::start(&workspace);
-    let signal = |name: &str| {
-        let sent = std::process::Command::new("kill")
-            .arg(format!("-{name}"))
-            .arg(watcher.child.id().to_string())
-            .status()
-            .expect("run kill");
-        assert!(sent.success());
-    };
-    signal("STOP");
+    watcher.signal("STOP");
     fs::remove_file(workspace.notes().join("2025-06-01-conveyor-7-hot.md")).unwrap();
     // Nobody answers: the search gives up waiting and checks every note.
     status(&workspace.run(&["search", "sawdust"]), 1);
-    signal("CONT");
+    watcher.signal("CONT");
     status(&workspace.run(&["search", "silt"]), 0);
     assert_eq!(watcher.terminate().0, Some(0));
 }

@@ -197,22 +197,7 @@ fn run(count: usize, root: &Path, binary: &Path) {
     );
     drop(index);
 
-    let mut cli = Vec::new();
-    for query in &queries {
-        for _ in 0..3 {
-            let started = Instant::now();
-            let status = Command::new(binary)
-                .args(["cases", "search", query, "--cases"])
-                .arg(&notes)
-                .arg("--index-dir")
-                .arg(&index_dir)
-                .stdout(std::process::Stdio::null())
-                .status()
-                .unwrap();
-            cli.push(started.elapsed());
-            assert!(status.success());
-        }
-    }
+    let mut cli = cli_searches(binary, &notes, &index_dir, &queries);
     let cli_p50 = percentile(&mut cli, 0.5);
     println!("| query via CLI binary (warm), p50 / p95 | {} / {} | includes checking all {count} files for changes |", ms(cli_p50), ms(percentile(&mut cli, 0.95)));
     breakdown(binary, &notes, &index_dir, &queries);
@@ -340,22 +325,7 @@ fn watched(
         ms(open)
     );
 
-    let mut cli = Vec::new();
-    for query in queries {
-        for _ in 0..3 {
-            let started = Instant::now();
-            let status = Command::new(binary)
-                .args(["cases", "search", query, "--cases"])
-                .arg(notes)
-                .arg("--index-dir")
-                .arg(index_dir)
-                .stdout(std::process::Stdio::null())
-                .status()
-                .unwrap();
-            cli.push(started.elapsed());
-            assert!(status.success());
-        }
-    }
+    let mut cli = cli_searches(binary, notes, index_dir, queries);
     let cli_p50 = percentile(&mut cli, 0.5);
     println!(
         "| query via CLI binary with watcher (warm), p50 / p95 | {} / {} | {:.0}x faster than grep |",
@@ -381,17 +351,7 @@ fn watched(
         let mut text = fs::read_to_string(&path).unwrap();
         text.push_str(&format!("\nEdited before a search, pass {i}.\n"));
         fs::write(&path, text).unwrap();
-        let started = Instant::now();
-        let status = Command::new(binary)
-            .args(["cases", "search", &queries[0], "--cases"])
-            .arg(notes)
-            .arg("--index-dir")
-            .arg(index_dir)
-            .stdout(std::process::Stdio::null())
-            .status()
-            .unwrap();
-        searches.push(started.elapsed());
-        assert!(status.success());
+        searches.push(cli_search(binary, notes, index_dir, &queries[0]));
     }
     let update = percentile(&mut updates, 0.5);
     println!(
@@ -420,6 +380,35 @@ fn watched(
         .status()
         .unwrap();
     assert!(watcher.wait().unwrap().success());
+}
+
+/// The time of one search through the binary, as a user runs it.
+fn cli_search(binary: &Path, notes: &Path, index_dir: &Path, query: &str) -> Duration {
+    let started = Instant::now();
+    let status = Command::new(binary)
+        .args(["cases", "search", query, "--cases"])
+        .arg(notes)
+        .arg("--index-dir")
+        .arg(index_dir)
+        .stdout(std::process::Stdio::null())
+        .status()
+        .unwrap();
+    let elapsed = started.elapsed();
+    assert!(status.success());
+    elapsed
+}
+
+/// Each query searched three times through the binary.
+fn cli_searches(
+    binary: &Path,
+    notes: &Path,
+    index_dir: &Path,
+    queries: &[String],
+) -> Vec<Duration> {
+    queries
+        .iter()
+        .flat_map(|query| (0..3).map(move |_| cli_search(binary, notes, index_dir, query)))
+        .collect()
 }
 
 /// p50 of `runs` timings of `job`.
